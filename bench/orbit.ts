@@ -1,0 +1,3 @@
+export async function bench(): Promise<void> {
+  console.log('(not measured yet)');
+}
