@@ -37,7 +37,7 @@ export function requireInRange(name: string, value: number, spec: RangeSpec): nu
   if (!loOk || !hiOk) {
     const lb = spec.minInclusive === false ? '(' : '[';
     const rb = spec.maxInclusive === false ? ')' : ']';
-    const unit = spec.unit ? ` ${spec.unit}` : '';
+    const unit = !spec.unit ? '' : spec.unit === '°' ? '°' : ` ${spec.unit}`;
     throw new RangeError(`${name} must be in ${lb}${spec.min}, ${spec.max}${rb}${unit}, got ${value}`);
   }
   return value;

@@ -1,11 +1,50 @@
-import { UsageError } from '../args.ts';
+import { aimForPass } from '../../core/geometry/pointing.ts';
+import { peakRcsM2 } from '../../core/reflector/trihedral.ts';
+import { toDb } from '../../core/units.ts';
+import { requirePositive } from '../../core/validate.ts';
 import type { Command } from '../command.ts';
+import { readLook, readShape, readWavelengthM } from '../common.ts';
+import { fmt, keyValueTable } from '../output.ts';
 
 export const command: Command = {
   name: 'aim',
-  summary: 'not built yet',
-  usage: '',
-  run() {
-    throw new UsageError('the aim command is not built yet');
+  summary: 'reflector azimuth, boresight elevation, base tilt and peak RCS for one pass geometry',
+  usage: '--incidence DEG --heading DEG [--look right|left] [--shape triangular|square] [--edge M] [--wavelength M | --frequency GHZ | --band NAME] [--json]',
+  run(args, out) {
+    const json = args.flag('json');
+    const incidenceDeg = args.number('incidence');
+    const headingDeg = args.number('heading');
+    const look = readLook(args);
+    const shape = readShape(args, 'triangular');
+    const edgeM = requirePositive('edge', args.optNumber('edge') ?? 1, 'm');
+    const wavelengthM = readWavelengthM(args, 'C');
+    args.assertNoUnknown();
+
+    const aim = aimForPass({ incidenceDeg, headingDeg, look });
+    const peak = peakRcsM2({ shape, edgeM, wavelengthM });
+    const result = {
+      reflectorAzimuthDeg: aim.reflectorAzimuthDeg,
+      boresightElevationDeg: aim.boresightElevationDeg,
+      baseTiltDeg: aim.baseTiltDeg,
+      wavelengthM,
+      peakRcsM2: peak,
+      peakRcsDbsm: toDb(peak),
+      shape,
+      edgeM,
+      look,
+      azimuthReference: 'true north, clockwise, toward the satellite',
+    };
+    if (json) out.stdout(JSON.stringify(result, null, 2) + '\n');
+    else
+      out.stdout(
+        keyValueTable([
+          ['reflector azimuth (true)', `${fmt(result.reflectorAzimuthDeg, 2)}°`],
+          ['boresight elevation', `${fmt(result.boresightElevationDeg, 2)}°`],
+          ['base tilt (open side up +)', `${fmt(result.baseTiltDeg, 2)}°`],
+          ['wavelength', `${fmt(wavelengthM * 100, 3)} cm`],
+          [`peak RCS (${shape}, edge ${fmt(edgeM, 3)} m)`, `${fmt(peak, 1)} m² = ${fmt(result.peakRcsDbsm, 2)} dBsm`],
+        ]),
+      );
+    return 0;
   },
 };

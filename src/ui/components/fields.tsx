@@ -1,0 +1,136 @@
+/** Glove-sized form controls: native inputs with visible labels, 48 px targets, and errors marked in place. */
+import { useId, type ReactNode } from 'react';
+
+export interface Parsed {
+  value?: number;
+  error?: string;
+}
+
+/**
+ * Parse a typed number and run a core validator on it. The validator's RangeError message (which names the
+ * field, the value and the allowed range) is shown as is; nothing throws out of a form.
+ */
+export function parseField(label: string, text: string, validate?: (name: string, v: number) => unknown): Parsed {
+  const t = text.trim().replace(',', '.');
+  if (t === '') return { error: `${label} is empty` };
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(t)) return { error: `${label} must be a number, got "${text}"` };
+  const v = Number(t);
+  try {
+    validate?.(label, v);
+  } catch (e) {
+    return { error: e instanceof Error ? e.message : String(e) };
+  }
+  return { value: v };
+}
+
+export function NumberField(props: {
+  label: string;
+  value: string;
+  onChange: (v: string) => void;
+  error?: string;
+  unit?: string;
+  testId?: string;
+  hint?: ReactNode;
+}) {
+  const id = useId();
+  const errId = `${id}-err`;
+  return (
+    <div className="gm-field">
+      <label htmlFor={id}>
+        {props.label}
+        {props.unit ? ` (${props.unit})` : ''}
+      </label>
+      <input
+        id={id}
+        data-testid={props.testId}
+        inputMode="decimal"
+        autoComplete="off"
+        value={props.value}
+        aria-invalid={props.error ? 'true' : 'false'}
+        aria-describedby={props.error ? errId : undefined}
+        onChange={(e) => props.onChange(e.target.value)}
+      />
+      {props.error ? (
+        <p id={errId} className="gm-error" role="alert" data-testid={props.testId ? `${props.testId}-error` : undefined}>
+          {props.error}
+        </p>
+      ) : props.hint ? (
+        <p className="gm-note">{props.hint}</p>
+      ) : null}
+    </div>
+  );
+}
+
+export function TextField(props: { label: string; value: string; onChange: (v: string) => void; testId?: string; multiline?: boolean }) {
+  const id = useId();
+  return (
+    <div className="gm-field">
+      <label htmlFor={id}>{props.label}</label>
+      {props.multiline ? (
+        <textarea id={id} data-testid={props.testId} value={props.value} onChange={(e) => props.onChange(e.target.value)} />
+      ) : (
+        <input id={id} data-testid={props.testId} value={props.value} onChange={(e) => props.onChange(e.target.value)} />
+      )}
+    </div>
+  );
+}
+
+export function Segmented<T extends string>(props: {
+  label: string;
+  value: T;
+  options: readonly { value: T; label: string }[];
+  onChange: (v: T) => void;
+  testId?: string;
+}) {
+  return (
+    <div className="gm-field">
+      <span className="gm-label" id={`${props.testId ?? props.label}-lbl`}>
+        {props.label}
+      </span>
+      <div className="gm-seg" role="group" aria-labelledby={`${props.testId ?? props.label}-lbl`} data-testid={props.testId}>
+        {props.options.map((o) => (
+          <button
+            key={o.value}
+            type="button"
+            className="gm-btn"
+            aria-pressed={o.value === props.value}
+            data-value={o.value}
+            onClick={() => props.onChange(o.value)}
+          >
+            {o.label}
+          </button>
+        ))}
+      </div>
+    </div>
+  );
+}
+
+export function SelectField(props: { label: string; value: string; options: readonly { value: string; label: string }[]; onChange: (v: string) => void; testId?: string }) {
+  const id = useId();
+  return (
+    <div className="gm-field">
+      <label htmlFor={id}>{props.label}</label>
+      <select id={id} data-testid={props.testId} value={props.value} onChange={(e) => props.onChange(e.target.value)}>
+        {props.options.map((o) => (
+          <option key={o.value} value={o.value}>
+            {o.label}
+          </option>
+        ))}
+      </select>
+    </div>
+  );
+}
+
+/** A large number for reading at arm's length in sunlight. */
+export function BigNumber(props: { label: string; value: string; unit?: string; testId?: string; tone?: 'ok' | 'bad'; sub?: ReactNode }) {
+  return (
+    <div className={`gm-card${props.tone ? ' gm-' + props.tone : ''}`}>
+      <div className="gm-label">{props.label}</div>
+      <div className="gm-big" data-testid={props.testId}>
+        {props.value}
+        {props.unit ? <span className="gm-mid">{props.unit}</span> : null}
+      </div>
+      {props.sub ? <div className="gm-note">{props.sub}</div> : null}
+    </div>
+  );
+}

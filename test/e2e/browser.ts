@@ -1,0 +1,37 @@
+/** Launch Debian's chromium through playwright-core (never a downloaded browser) and save screenshots as artifacts. */
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { mkdirSync } from 'node:fs';
+
+export const BASE_URL = 'http://127.0.0.1:4173';
+export const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+  '--disable-quic',
+];
+
+export async function launch(): Promise<Browser> {
+  return chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', headless: true, args: CHROMIUM_ARGS });
+}
+
+/** A phone-sized context with geolocation granted for the preview origin. */
+export async function phoneContext(browser: Browser, opts: { geolocation?: boolean } = {}): Promise<BrowserContext> {
+  const ctx = await browser.newContext({ viewport: { width: 412, height: 915 }, deviceScaleFactor: 1, hasTouch: true, isMobile: false });
+  if (opts.geolocation !== false) await ctx.grantPermissions(['geolocation'], { origin: BASE_URL });
+  return ctx;
+}
+
+export async function screenshot(page: Page, name: string): Promise<void> {
+  mkdirSync('test/e2e/artifacts', { recursive: true });
+  await page.screenshot({ path: `test/e2e/artifacts/${name}.png`, fullPage: true });
+}
+
+/** Type into a field found by data-testid, replacing what was there. */
+export async function fill(page: Page, testId: string, value: string): Promise<void> {
+  await page.locator(`[data-testid="${testId}"]`).fill(value);
+}
+
+export const text = (page: Page, testId: string) => page.locator(`[data-testid="${testId}"]`).innerText();

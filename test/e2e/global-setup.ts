@@ -1,0 +1,43 @@
+/**
+ * Browser-test setup: build the app once, serve dist/ with `vite preview` on 127.0.0.1:4173 (a secure context, so
+ * geolocation and orientation work), and stop the server afterwards.
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { existsSync, mkdirSync } from 'node:fs';
+
+export const BASE_URL = 'http://127.0.0.1:4173';
+let server: ChildProcess | undefined;
+
+async function waitForServer(url: string, timeoutMs: number): Promise<void> {
+  const t0 = Date.now();
+  for (;;) {
+    try {
+      const r = await fetch(url);
+      if (r.ok) return;
+    } catch {
+      /* not up yet */
+    }
+    if (Date.now() - t0 > timeoutMs) throw new Error(`vite preview did not answer at ${url} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 200));
+  }
+}
+
+export async function setup(): Promise<void> {
+  mkdirSync('test/e2e/artifacts', { recursive: true });
+  if (!process.env.GLINTMARK_E2E_SKIP_BUILD || !existsSync('dist/index.html')) {
+    const b = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
+    if (b.status !== 0) throw new Error('vite build failed');
+  }
+  server = spawn('npx', ['vite', 'preview', '--host', '127.0.0.1', '--port', '4173', '--strictPort'], { stdio: 'ignore', detached: true });
+  await waitForServer(BASE_URL + '/', 30_000);
+}
+
+export async function teardown(): Promise<void> {
+  if (server?.pid) {
+    try {
+      process.kill(-server.pid, 'SIGTERM');
+    } catch {
+      server.kill('SIGTERM');
+    }
+  }
+}

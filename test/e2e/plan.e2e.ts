@@ -1,0 +1,37 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BASE_URL, fill, launch, phoneContext, screenshot, text } from './browser.ts';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('Plan screen', () => {
+  it('opens on Plan, aims a typed geometry, and marks a bad value in place', async () => {
+    const ctx = await phoneContext(browser);
+    const page = await ctx.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await page.goto(BASE_URL + '/');
+    await page.waitForURL(/\/plan$/);
+    await fill(page, 'incidence-0', '40');
+    await fill(page, 'heading-0', '190');
+    await page.locator('[data-testid="look-0"] button[data-value="right"]').click();
+    // Right-looking, heading 190° → reflector faces 100°; tilt = (90 − 40) − 35.26 = 14.7°.
+    await expect.poll(() => text(page, 'result-azimuth')).toContain('100.0');
+    expect(await text(page, 'result-tilt')).toContain('14.7');
+    await screenshot(page, 'plan-aimed');
+
+    await fill(page, 'incidence-0', '95');
+    const msg = await text(page, 'incidence-0-error');
+    expect(msg).toMatch(/Incidence must be in \(0, 90\)°, got 95/);
+    expect(await text(page, 'result-azimuth')).toContain('—');
+    await screenshot(page, 'plan-invalid');
+    expect(errors).toEqual([]);
+    await ctx.close();
+  });
+});
