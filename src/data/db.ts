@@ -1,0 +1,109 @@
+/**
+ * The Logbook database: Dexie schema, versions and migrations. Only indexed properties are listed;
+ * blobs and nested objects are never indexed (Dexie docs: index only what a where() clause uses).
+ *
+ * RULE: a version block with an upgrade() must never be altered once shipped; add a new version instead
+ * (Dexie, "Database Versioning": "A version with an upgrader attached must never be altered").
+ * A table is removed only by declaring it `null` in a new version.
+ */
+import Dexie, { type Table, type Transaction } from 'dexie';
+import type {
+  ConflictRecord,
+  DraftRecord,
+  GeometryRecord,
+  InspectionRecord,
+  InstallationRecord,
+  MetaRecord,
+  PhotoRecord,
+  ReflectorRecord,
+  RevisionRecord,
+  SiteRecord,
+} from './types.ts';
+
+export type GlintmarkDb = Dexie & {
+  sites: Table<SiteRecord, string>;
+  reflectors: Table<ReflectorRecord, string>;
+  geometries: Table<GeometryRecord, string>;
+  installations: Table<InstallationRecord, string>;
+  inspections: Table<InspectionRecord, string>;
+  photos: Table<PhotoRecord, string>;
+  revisions: Table<RevisionRecord, string>;
+  drafts: Table<DraftRecord, string>;
+  meta: Table<MetaRecord, string>;
+  conflicts: Table<ConflictRecord, string>;
+};
+
+export const CURRENT_SCHEMA_VERSION = 2;
+
+/**
+ * Version 1 (released 0.1). Sites had `gnssFix: boolean` instead of `positionSource`; installations had a
+ * single `geometryId: string | null` and no `declinationModel`. No conflicts table.
+ * Exported so the migration test writes real v1 databases with exactly these stores.
+ */
+export const SCHEMA_V1 = {
+  sites: 'id, code',
+  reflectors: 'id, siteId',
+  geometries: 'id, siteId, reflectorId',
+  installations: 'id, siteId, reflectorId, [siteId+installedAtMs]',
+  inspections: 'id, siteId, reflectorId, [siteId+inspectedAtMs]',
+  photos: 'id, [ownerTable+ownerId]',
+  revisions: 'id, [table+recordId]',
+  drafts: 'key',
+  meta: 'key',
+} as const;
+
+/** Version 2: installations get a multi-entry index on geometryIds; merge conflicts get their own table. */
+export const SCHEMA_V2 = {
+  installations: 'id, siteId, reflectorId, [siteId+installedAtMs], *geometryIds',
+  conflicts: 'id, [table+recordId]',
+} as const;
+
+/** The declination model the 0.1 release used for every compass reading (its only model). */
+export const V1_DECLINATION_MODEL = 'WMM2020';
+
+/**
+ * v1 → v2, per row, without bumping `rev` or writing revisions: a schema migration is not an edit by
+ * the crew, and two phones migrating the same record produce the same row, so merges stay conflict-free.
+ *   sites: positionSource = gnssFix ? 'gnss-phone' : 'typed'; gnssFix removed.
+ *   installations: geometryIds = geometryId ? [geometryId] : []; geometryId removed;
+ *     declinationModel = declinationDeg !== null ? 'WMM2020' : null.
+ */
+async function upgradeV1ToV2(tx: Transaction): Promise<void> {
+  let sites = 0;
+  let installations = 0;
+  await tx
+    .table('sites')
+    .toCollection()
+    .modify((s: Record<string, unknown>) => {
+      s.positionSource = s.gnssFix === true ? 'gnss-phone' : 'typed';
+      delete s.gnssFix;
+      sites++;
+    });
+  await tx
+    .table('installations')
+    .toCollection()
+    .modify((i: Record<string, unknown>) => {
+      const g = i.geometryId;
+      i.geometryIds = typeof g === 'string' && g !== '' ? [g] : [];
+      delete i.geometryId;
+      i.declinationModel = typeof i.declinationDeg === 'number' ? V1_DECLINATION_MODEL : null;
+      installations++;
+    });
+  await tx.table('meta').put({ key: 'migration-v1-v2', value: { atMs: Date.now(), sites, installations } });
+}
+
+/**
+ * A Dexie instance with the Glintmark schema. Tests pass a unique name for an isolated database;
+ * the app uses the default. The database opens lazily on the first query.
+ */
+export function openGlintmarkDb(name = 'glintmark'): GlintmarkDb {
+  const db = new Dexie(name) as GlintmarkDb;
+  // Version 1: never alter (migrated databases depend on it).
+  db.version(1).stores(SCHEMA_V1);
+  // Version 2: never alter once shipped; add version 3 for further changes.
+  db.version(2).stores(SCHEMA_V2).upgrade(upgradeV1ToV2);
+  db.on('populate', (tx) => {
+    tx.table('meta').add({ key: 'schema', value: { createdWithVersion: CURRENT_SCHEMA_VERSION, createdAtMs: Date.now() } });
+  });
+  return db;
+}

@@ -1,0 +1,16 @@
+/** Small device-local facts: schema info, last backup time, the persistent-storage answer. Not part of backups. */
+import type { GlintmarkDb } from '../db.ts';
+
+/**
+ * Known keys: 'schema' ({createdWithVersion, createdAtMs}), 'migration-v1-v2' ({atMs, sites, installations}),
+ * 'lastBackupAtMs' (number), 'persistence' ({result, atMs}).
+ */
+export type MetaKey = 'schema' | 'migration-v1-v2' | 'lastBackupAtMs' | 'persistence';
+
+export async function getMeta<T = unknown>(db: GlintmarkDb, key: MetaKey): Promise<T | undefined> {
+  return (await db.meta.get(key))?.value as T | undefined;
+}
+
+export async function setMeta(db: GlintmarkDb, key: MetaKey, value: unknown): Promise<void> {
+  await db.meta.put({ key, value });
+}
