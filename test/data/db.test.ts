@@ -1,0 +1,109 @@
+import 'fake-indexeddb/auto';
+import Dexie from 'dexie';
+import { afterEach, describe, expect, it } from 'vitest';
+import { CURRENT_SCHEMA_VERSION, SCHEMA_V1, V1_DECLINATION_MODEL, openGlintmarkDb, type GlintmarkDb } from '../../src/data/db.ts';
+import { getMeta } from '../../src/data/repo/meta.ts';
+import { parseFields, splitRow } from '../../src/data/schema/validate.ts';
+import type { EntityTable } from '../../src/data/types.ts';
+import { T0_MS } from './helpers.ts';
+
+const names: string[] = [];
+const uniqueName = () => {
+  const n = `migration-${crypto.randomUUID()}`;
+  names.push(n);
+  return n;
+};
+afterEach(async () => {
+  while (names.length) await Dexie.delete(names.pop() as string);
+});
+
+const ID = {
+  siteGnss: '0b0c6c36-54f5-4a39-9a43-3c2f4c2e0001',
+  siteTyped: '0b0c6c36-54f5-4a39-9a43-3c2f4c2e0002',
+  refl: '0b0c6c36-54f5-4a39-9a43-3c2f4c2e0003',
+  geo: '0b0c6c36-54f5-4a39-9a43-3c2f4c2e0004',
+  instWithGeo: '0b0c6c36-54f5-4a39-9a43-3c2f4c2e0005',
+  instNoGeo: '0b0c6c36-54f5-4a39-9a43-3c2f4c2e0006',
+  rev: '0b0c6c36-54f5-4a39-9a43-3c2f4c2e0007',
+};
+const meta = { rev: 1, createdAtMs: T0_MS, updatedAtMs: T0_MS, deletedAtMs: null };
+
+/** Rows exactly as the 0.1 release wrote them. */
+const v1Site = (id: string, code: string, gnssFix: boolean) => ({
+  id, ...meta, code, name: `Site ${code}`, latDeg: 52.1, lonDeg: -1.5, heightEllM: 60, gnssFix,
+  positionAccuracyM: gnssFix ? 4 : null, referenceFrame: 'WGS84', frameEpoch: null, notes: 'v1 note', demo: false,
+});
+const v1Installation = (id: string, geometryId: string | null, declinationDeg: number | null) => ({
+  id, ...meta, reflectorId: ID.refl, siteId: ID.siteGnss, geometryId, plannedAzimuthDeg: 255, plannedTiltDeg: -3,
+  measuredAzimuthDeg: 255.5, measuredTiltDeg: -2.9, measuredRollDeg: 0.1,
+  azimuthMethod: declinationDeg === null ? 'sun-shadow' : 'compass', declinationDeg, fix: null, predictedLossDb: null,
+  crew: ['Ada Quill'], installedAtMs: T0_MS, notes: '', photoIds: [], demo: false,
+});
+
+async function writeV1(name: string): Promise<void> {
+  const raw = new Dexie(name);
+  raw.version(1).stores(SCHEMA_V1);
+  await raw.table('sites').bulkAdd([v1Site(ID.siteGnss, 'MF-01', true), v1Site(ID.siteTyped, 'MF-02', false)]);
+  await raw.table('reflectors').add({
+    id: ID.refl, ...meta, siteId: ID.siteGnss, label: 'A', shape: 'triangular', edgeM: 1.5,
+    construction: { panels: 'solid', drainage: 'holes', foundation: 'pillar' }, apex: null, apexHeightAboveMarkM: 0.8,
+    gnssArpOffsetM: null, notes: '', demo: false,
+  });
+  await raw.table('geometries').add({
+    id: ID.geo, ...meta, siteId: ID.siteGnss, reflectorId: ID.refl, incidenceDeg: 38, headingDeg: 346, look: 'right',
+    direction: 'ascending', band: 'C', wavelengthM: 0.0555, source: 'typed', satellite: null, elementsEpochMs: null, demo: false,
+  });
+  await raw.table('installations').bulkAdd([v1Installation(ID.instWithGeo, ID.geo, 1.25), v1Installation(ID.instNoGeo, null, null)]);
+  await raw.table('revisions').add({ id: ID.rev, table: 'sites', recordId: ID.siteGnss, rev: 1, atMs: T0_MS, by: 'Ada Quill', kind: 'create', changes: [], snapshot: null, cascadeOf: null });
+  await raw.table('drafts').put({ key: 'installation-form', value: { notes: 'half typed' }, savedAtMs: T0_MS });
+  raw.close();
+}
+
+/** Every migrated row must also pass today's validation. */
+async function expectValid(db: GlintmarkDb, table: EntityTable): Promise<void> {
+  for (const row of await db.table(table).toArray()) expect(() => parseFields(table, splitRow(row).fields)).not.toThrow();
+}
+
+describe('schema versions', () => {
+  it('a new database is created at the current version and records it in meta', async () => {
+    const db = openGlintmarkDb(uniqueName());
+    await db.open();
+    expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
+    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 2 });
+    db.close();
+  });
+
+  it('migrates a version-1 database with data: every field of every migrated row', async () => {
+    const name = uniqueName();
+    await writeV1(name);
+    const db = openGlintmarkDb(name);
+    await db.open();
+    expect(db.verno).toBe(2);
+
+    const { gnssFix: _g1, ...siteGnss } = v1Site(ID.siteGnss, 'MF-01', true);
+    const { gnssFix: _g2, ...siteTyped } = v1Site(ID.siteTyped, 'MF-02', false);
+    expect(await db.sites.get(ID.siteGnss)).toEqual({ ...siteGnss, positionSource: 'gnss-phone' });
+    expect(await db.sites.get(ID.siteTyped)).toEqual({ ...siteTyped, positionSource: 'typed' });
+
+    const { geometryId: _a, ...instWithGeo } = v1Installation(ID.instWithGeo, ID.geo, 1.25);
+    const { geometryId: _b, ...instNoGeo } = v1Installation(ID.instNoGeo, null, null);
+    expect(await db.installations.get(ID.instWithGeo)).toEqual({ ...instWithGeo, geometryIds: [ID.geo], declinationModel: V1_DECLINATION_MODEL });
+    expect(await db.installations.get(ID.instNoGeo)).toEqual({ ...instNoGeo, geometryIds: [], declinationModel: null });
+
+    // Untouched tables come through unchanged; the new multi-entry index and conflicts table work.
+    expect((await db.reflectors.get(ID.refl))?.label).toBe('A');
+    expect((await db.geometries.get(ID.geo))?.incidenceDeg).toBe(38);
+    expect((await db.revisions.get(ID.rev))?.by).toBe('Ada Quill');
+    expect((await db.drafts.get('installation-form'))?.value).toEqual({ notes: 'half typed' });
+    expect((await db.installations.where('geometryIds').equals(ID.geo).primaryKeys())).toEqual([ID.instWithGeo]);
+    expect(await db.conflicts.count()).toBe(0);
+    expect(await getMeta(db, 'migration-v1-v2')).toMatchObject({ sites: 2, installations: 2 });
+    for (const t of ['sites', 'reflectors', 'geometries', 'installations'] as const) await expectValid(db, t);
+    db.close();
+
+    // Reopening an already migrated database changes nothing.
+    const again = openGlintmarkDb(name);
+    expect(await again.installations.get(ID.instNoGeo)).toEqual({ ...instNoGeo, geometryIds: [], declinationModel: null });
+    again.close();
+  });
+});
