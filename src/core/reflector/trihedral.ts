@@ -95,6 +95,9 @@ export function checkOpticalRegion(r: Reflector): Result<Reflector, BelowOptical
 }
 
 const UNIT_NORM_TOL = 1e-6;
+/** Cosines at or below this count as zero: a direction on a face (e.g. azimuth offset 45°) comes out of the
+ * degree-to-radian conversion with a cosine of ±1e-16 instead of 0. */
+const FACE_COSINE_TOL = 1e-12;
 
 /**
  * Effective aperture over the squared edge, A/a², for direction cosines c against the edges e₁, e₂, e₃.
@@ -104,7 +107,7 @@ const UNIT_NORM_TOL = 1e-6;
  *   (report number from memory: SAND2014-0882); Brock & Doerry, SAND2009-2993, 2009; derivation in
  *   Robertson 1947 and Bonkowski, Lubitz & Schensted, 1953.
  * Square panels: the exact overlap of the projected hexagon and its point reflection (./aperture.ts).
- * Any non-positive cosine (line of sight outside the corner's octant) gives 0.
+ * Any non-positive cosine (line of sight outside the corner's octant, or on a face: ≤ 1e-12) gives 0.
  * Throws a RangeError when a cosine is not finite or the three are not those of a unit vector (|Σc² − 1| > 1e-6).
  */
 export function effectiveAreaRatio(shape: TrihedralShape, cosines: readonly [number, number, number]): number {
@@ -117,7 +120,7 @@ export function effectiveAreaRatio(shape: TrihedralShape, cosines: readonly [num
   if (Math.abs(n2 - 1) > UNIT_NORM_TOL) {
     throw new RangeError(`cosines must be the direction cosines of a unit vector (sum of squares 1 ± ${UNIT_NORM_TOL}), got sum ${n2}`);
   }
-  if (!(a > 0 && b > 0 && c > 0)) return 0;
+  if (!(a > FACE_COSINE_TOL && b > FACE_COSINE_TOL && c > FACE_COSINE_TOL)) return 0;
   const ratio = shape === 'triangular' ? triangularAreaRatio(a, b, c) : squareOverlapAreaRatio(a, b, c);
   // Rounding can put the boresight value one ulp above its maximum; the pattern never exceeds its peak.
   return Math.min(ratio, peakAreaRatio(shape));
