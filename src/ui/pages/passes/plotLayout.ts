@@ -1,0 +1,145 @@
+/**
+ * Layout of the Passes screen's two drawings, as plain numbers (testable without a DOM):
+ *  - the sky plot: a polar plot seen from below looking up, north at the top, azimuth clockwise, elevation
+ *    90° at the centre and 0° on the rim (radius ∝ zenith angle, an azimuthal equidistant view of the sky);
+ *  - the reflector's −3 dB beam outline on that plot, approximated as an ellipse of angles around boresight;
+ *  - the timeline: days across, ascending and descending passes on separate rows.
+ */
+import { reflectorAxesEnu, type ReflectorOrientation } from '../../../core/geometry/orientation.ts';
+import { azElFromEnu } from '../../../core/geometry/pointing.ts';
+import type { PassDirection } from '../../../core/orbit/passes.ts';
+import type { Beamwidth3dB } from '../../../core/reflector/beamwidth.ts';
+import { toRad } from '../../../core/units.ts';
+import type { Vec3 } from '../../../core/vec3.ts';
+import { MS_PER_DAY } from './computePasses.ts';
+
+export interface AzEl {
+  azimuthDeg: number;
+  elevationDeg: number;
+}
+
+export interface SkyFrame {
+  cx: number;
+  cy: number;
+  /** Radius of the horizon circle, px. */
+  radiusPx: number;
+}
+
+/** Point of the sky plot for a direction: r = R (90° − el)/90°, x = cx + r sin az, y = cy − r cos az. */
+export function skyPoint(d: AzEl, f: SkyFrame): { x: number; y: number } {
+  const r = (f.radiusPx * (90 - d.elevationDeg)) / 90;
+  const a = toRad(d.azimuthDeg);
+  return { x: f.cx + r * Math.sin(a), y: f.cy - r * Math.cos(a) };
+}
+
+/** Line of sight of a track: toward the satellite at elevation 90° − incidence. */
+export const trackDirection = (t: { reflectorAzimuthDeg: number; incidenceDeg: number }): AzEl => ({
+  azimuthDeg: t.reflectorAzimuthDeg,
+  elevationDeg: 90 - t.incidenceDeg,
+});
+
+/** Boresight direction of the reflector (for roll 0: azimuth = the bisector's, elevation = tilt + 35.26°). */
+export function boresightDirection(o: ReflectorOrientation): AzEl {
+  return azElFromEnu(reflectorAxesEnu(o).boresight);
+}
+
+const S13 = Math.sqrt(1 / 3), S23 = Math.sqrt(2 / 3);
+/** Body frame (right, forward, up): boresight, and the unit tangents toward the vertical edge and to the right. */
+const B: Vec3 = [0, S23, S13];
+const T_UP: Vec3 = [0, -S13, S23];
+const T_RIGHT: Vec3 = [1, 0, 0];
+
+/**
+ * Approximate −3 dB outline: directions at angle θ(φ) from boresight, φ measured around it from the vertical-edge
+ * side toward the right, with θ on an ellipse whose semi-axes are the published cut half-widths
+ *   θ(φ) = 1 / √((cos φ / a)² + (sin φ / c)²),  a = above or below half-width by the sign of cos φ, c = azimuth half-width.
+ * Exact on the two cuts (φ = 0°, 90°, 180°, 270°); between them it is an interpolation, so label it approximate.
+ */
+export function beamOutline(o: ReflectorOrientation, bw: Beamwidth3dB, points = 72): AzEl[] {
+  const ax = reflectorAxesEnu(o);
+  const c = bw.azimuthFullDeg / 2;
+  const out: AzEl[] = [];
+  for (let i = 0; i < points; i++) {
+    const phi = (2 * Math.PI * i) / points;
+    const a = Math.cos(phi) >= 0 ? bw.elevationAboveDeg : bw.elevationBelowDeg;
+    const theta = 1 / Math.hypot(Math.cos(phi) / toRad(a), Math.sin(phi) / toRad(c));
+    const k = Math.sin(theta);
+    const body = (j: number) => Math.cos(theta) * B[j] + k * (Math.cos(phi) * T_UP[j] + Math.sin(phi) * T_RIGHT[j]);
+    const [bx, by, bz] = [body(0), body(1), body(2)];
+    const enu = (j: number) => bx * ax.right[j] + by * ax.forward[j] + bz * ax.up[j];
+    out.push(azElFromEnu([enu(0), enu(1), enu(2)]));
+  }
+  return out;
+}
+
+export interface TimelineInput {
+  timeMs: number;
+  direction: PassDirection;
+  satellite: string;
+  incidenceDeg: number;
+}
+
+export interface TimelineMark extends TimelineInput {
+  x: number;
+  y: number;
+  /** Triangle pointing up (ascending, moving north) or down (descending), plus a letter: never colour alone. */
+  shape: 'up' | 'down';
+  letter: 'A' | 'D';
+}
+
+export interface TimelineTick {
+  x: number;
+  /** "3 Dec" at labelled ticks, "" otherwise. */
+  label: string;
+}
+
+export interface TimelineLayout {
+  width: number;
+  height: number;
+  plotLeft: number;
+  plotRight: number;
+  rows: { direction: PassDirection; y: number; label: string }[];
+  ticks: TimelineTick[];
+  marks: TimelineMark[];
+}
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+/** At most this many labelled day ticks, so labels never collide on a phone. */
+const MAX_LABELS = 8;
+
+/**
+ * Timeline of passes in [startMs, startMs + days): x proportional to time, one row per direction, a tick at each
+ * UTC midnight and a label ("3 Dec", UTC) every ⌈days / 8⌉ days. Passes outside the window are left out.
+ */
+export function timelineLayout(passes: readonly TimelineInput[], startMs: number, days: number, size = { width: 360, height: 120 }): TimelineLayout {
+  const plotLeft = 96, plotRight = size.width - 10;
+  const endMs = startMs + days * MS_PER_DAY;
+  const x = (t: number) => plotLeft + ((t - startMs) / (endMs - startMs)) * (plotRight - plotLeft);
+  const rows = [
+    { direction: 'ascending' as const, y: 30, label: 'Ascending ▲' },
+    { direction: 'descending' as const, y: 72, label: 'Descending ▼' },
+  ];
+  const every = Math.max(1, Math.ceil(days / MAX_LABELS));
+  const ticks: TimelineTick[] = [];
+  const firstMidnight = Math.ceil(startMs / MS_PER_DAY) * MS_PER_DAY;
+  for (let t = firstMidnight, i = 0; t <= endMs; t += MS_PER_DAY, i++) {
+    const d = new Date(t);
+    ticks.push({ x: x(t), label: i % every === 0 ? `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]}` : '' });
+  }
+  const marks: TimelineMark[] = passes
+    .filter((p) => p.timeMs >= startMs && p.timeMs < endMs)
+    .map((p) => ({
+      ...p,
+      x: x(p.timeMs),
+      y: rows[p.direction === 'ascending' ? 0 : 1].y,
+      shape: p.direction === 'ascending' ? 'up' : 'down',
+      letter: p.direction === 'ascending' ? 'A' : 'D',
+    }));
+  return { width: size.width, height: size.height, plotLeft, plotRight, rows, ticks, marks };
+}
+
+/** SVG points of a triangle of half-size `s` centred on (x, y), pointing up or down. */
+export function trianglePoints(x: number, y: number, s: number, shape: 'up' | 'down'): string {
+  const k = shape === 'up' ? 1 : -1;
+  return `${x},${y - k * s} ${x - s},${y + k * s} ${x + s},${y + k * s}`;
+}
