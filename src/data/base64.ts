@@ -19,7 +19,7 @@ export function base64DecodedLength(text: string): number {
 }
 
 /** Bytes of a base64 string; the caller has checked it with base64DecodedLength. */
-export function base64ToBytes(text: string): Uint8Array {
+export function base64ToBytes(text: string): Uint8Array<ArrayBuffer> {
   const bin = atob(text);
   const out = new Uint8Array(bin.length);
   for (let i = 0; i < bin.length; i++) out[i] = bin.charCodeAt(i);

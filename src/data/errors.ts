@@ -81,7 +81,7 @@ export class PhotoTooLargeError extends Error {
     readonly maxBytes: number,
   ) {
     super(
-      `The photo is ${formatMb(bytes)}, more than the ${formatMb(maxBytes)} limit; it was not saved ` +
+      `The photo is ${formatSize(bytes)}, more than the ${formatSize(maxBytes)} limit; it was not saved ` +
         `(the record itself is kept). Retake it at a lower resolution.`,
     );
   }
@@ -110,6 +110,9 @@ export class BackupError extends Error {
   }
 }
 
-export function formatMb(bytes: number): string {
+/** A size for messages: "512 bytes", "85 kB", "2.5 MB" (SI prefixes). */
+export function formatSize(bytes: number): string {
+  if (bytes < 1000) return `${bytes} bytes`;
+  if (bytes < 1_000_000) return `${Math.round(bytes / 1000)} kB`;
   return `${(bytes / 1_000_000).toFixed(1)} MB`;
 }

@@ -125,3 +125,25 @@ export async function dumpDb(db: GlintmarkDb): Promise<Record<string, unknown[]>
   }
   return out;
 }
+
+/**
+ * A small realistic logbook: two sites (one with reflector, geometry, installation with a photo, an
+ * inspection and an edit), and a soft-deleted site. Returns the ids.
+ */
+export async function seedSample(db: GlintmarkDb) {
+  const { siteRepo } = await import('../../src/data/repo/sites.ts');
+  const { reflectorRepo, geometryRepo, installationRepo, inspectionRepo } = await import('../../src/data/repo/entities.ts');
+  const { addPhoto } = await import('../../src/data/repo/photos.ts');
+  const ctx = { by: 'Ada Quill', nowMs: T0_MS };
+  const site = await siteRepo.create(db, siteFields({ notes: 'gate code 4711, "blue" gate\nsecond line' }), ctx);
+  const site2 = await siteRepo.create(db, siteFields({ code: 'MF-02', latDeg: -33.5, lonDeg: 151.25, heightEllM: 25 }), ctx);
+  const gone = await siteRepo.create(db, siteFields({ code: 'MF-03' }), ctx);
+  await siteRepo.softDelete(db, gone.id, { ...ctx, nowMs: T0_MS + 10 });
+  const refl = await reflectorRepo.create(db, reflectorFields(site.id), ctx);
+  const geo = await geometryRepo.create(db, geometryFields(site.id, { reflectorId: refl.id }), ctx);
+  const inst = await installationRepo.create(db, installationFields(site.id, refl.id, { geometryIds: [geo.id], notes: 'tilt, "checked" twice\nbolts tight' }), ctx);
+  const photo = await addPhoto(db, { table: 'installations', id: inst.id }, 'boresight', new Blob([new Uint8Array([1, 2, 3, 250, 251])], { type: 'image/jpeg' }), { ...ctx, nowMs: T0_MS + 20 });
+  const insp = await inspectionRepo.create(db, inspectionFields(site.id, refl.id), { ...ctx, nowMs: T0_MS + 30 });
+  await siteRepo.update(db, site2.id, { name: 'Hollin Ridge' }, { by: 'Bo Marsh', nowMs: T0_MS + 40 });
+  return { site, site2, gone, refl, geo, inst, photo, insp };
+}

@@ -1,0 +1,110 @@
+/**
+ * Full backup and restore. A backup is ONE versioned JSON document (see backup/format.ts). Restore checks
+ * the whole document first (backup/validate.ts) and then replaces the record tables in ONE transaction:
+ * either every row lands or none does. Drafts and meta stay as they are.
+ */
+import { base64ToBytes, blobToBase64 } from './base64.ts';
+import { CURRENT_SCHEMA_VERSION, type GlintmarkDb } from './db.ts';
+import { BackupError } from './errors.ts';
+import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, type BackupDocument, type BackupPhoto, type BackupTable } from './backup/format.ts';
+import { validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import { setMeta } from './repo/meta.ts';
+
+export { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, validateBackup };
+export type { BackupCheckOptions, BackupDocument, BackupPhoto, BackupTable };
+
+export interface ExportOptions {
+  /** App version written into the document (e.g. from package.json at build time). */
+  appVersion: string;
+  nowMs?: number;
+}
+
+/** Replace a stored blob by its base64 bytes (photo rows, and photo versions kept in conflicts). */
+async function encodeBlobField(row: Record<string, unknown>): Promise<Record<string, unknown>> {
+  if (!(row.blob instanceof Blob)) return row;
+  const { blob, ...rest } = row;
+  return { ...rest, dataBase64: await blobToBase64(blob as Blob) };
+}
+
+/** The reverse of encodeBlobField, given the mime type that goes with the bytes. */
+export function decodeBlobField(row: Record<string, unknown>): Record<string, unknown> {
+  if (typeof row.dataBase64 !== 'string') return row;
+  const { dataBase64, ...rest } = row;
+  return { ...rest, blob: new Blob([base64ToBytes(dataBase64 as string)], { type: String(row.mime ?? '') }) };
+}
+
+/** Read every record table in one consistent snapshot and build the backup document. */
+export async function exportBackup(db: GlintmarkDb, opts: ExportOptions): Promise<BackupDocument> {
+  const raw = await db.transaction('r', [...BACKUP_TABLES], async () => {
+    const out: Record<string, Record<string, unknown>[]> = {};
+    for (const t of BACKUP_TABLES) out[t] = (await db.table(t).toArray()) as Record<string, unknown>[];
+    return out;
+  });
+  // Blob reads are not IndexedDB requests, so they happen after the read transaction.
+  const photos = await Promise.all(raw.photos.map(encodeBlobField));
+  const conflicts = await Promise.all(
+    raw.conflicts.map(async (c) => ({ ...c, other: await encodeBlobField(c.other as Record<string, unknown>) })),
+  );
+  return {
+    format: BACKUP_FORMAT,
+    formatVersion: BACKUP_FORMAT_VERSION,
+    exportedAtUtc: new Date(opts.nowMs ?? Date.now()).toISOString(),
+    app: { name: 'glintmark', version: opts.appVersion, schemaVersion: CURRENT_SCHEMA_VERSION },
+    tables: { ...raw, photos, conflicts } as unknown as BackupDocument['tables'],
+  };
+}
+
+/** The document as the text to save (compact JSON, UTF-8 when written). */
+export const backupToJson = (doc: BackupDocument): string => JSON.stringify(doc);
+
+/** Remember when a backup file was last saved successfully (call after the file write succeeded). */
+export const recordBackupSaved = (db: GlintmarkDb, nowMs = Date.now()): Promise<void> => setMeta(db, 'lastBackupAtMs', nowMs);
+
+export interface RestoreOptions extends BackupCheckOptions {
+  /**
+   * Allow replacing records already on this device. Default false: restoring over existing records is
+   * refused (BackupError 'would-replace'), so a restore can never silently throw away newer field work.
+   */
+  replace?: boolean;
+}
+
+export type TableCounts = Record<BackupTable, number>;
+
+/** Rows of a validated document converted to stored rows (photo bytes back into Blobs). */
+export function storedRows(doc: BackupDocument): Record<BackupTable, Record<string, unknown>[]> {
+  const t = doc.tables as unknown as Record<BackupTable, Record<string, unknown>[]>;
+  return {
+    ...t,
+    photos: t.photos.map(decodeBlobField),
+    conflicts: t.conflicts.map((c) => ({ ...c, other: decodeBlobField(c.other as Record<string, unknown>) })),
+  };
+}
+
+/**
+ * Validate the whole document, then write it in one transaction. Resolves with the row counts written;
+ * rejects with BackupError (nothing written) or a Dexie error (nothing written).
+ */
+export async function restoreBackup(db: GlintmarkDb, input: string | unknown, opts: RestoreOptions = {}): Promise<TableCounts> {
+  const doc = validateBackup(input, opts);
+  const rows = storedRows(doc);
+  return db.transaction('rw', [...BACKUP_TABLES], async () => {
+    if (!opts.replace) {
+      let existing = 0;
+      for (const t of BACKUP_TABLES) if (t !== 'conflicts') existing += await db.table(t).count();
+      if (existing > 0) {
+        throw new BackupError(
+          'would-replace',
+          `This device already holds ${existing} records, and restoring would replace them all. Nothing was restored. ` +
+            'Use "merge" to combine the backup with them, or confirm replacing.',
+        );
+      }
+    }
+    const counts = {} as TableCounts;
+    for (const t of BACKUP_TABLES) {
+      await db.table(t).clear();
+      await db.table(t).bulkAdd(rows[t]);
+      counts[t] = rows[t].length;
+    }
+    return counts;
+  });
+}

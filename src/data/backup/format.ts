@@ -1,0 +1,109 @@
+/**
+ * The backup document, format version 1: ONE JSON document holding every record table, the history,
+ * the open merge conflicts and every photo inline as base64 with its mime type.
+ *
+ * {
+ *   "format": "glintmark-backup", "formatVersion": 1, "exportedAtUtc": "2027-07-02T12:00:00.000Z",
+ *   "app": { "name": "glintmark", "version": "0.1.0", "schemaVersion": 2 },
+ *   "tables": { "sites": [...], "reflectors": [...], "geometries": [...], "installations": [...],
+ *               "inspections": [...], "photos": [{ ...row without blob, "dataBase64": "..." }],
+ *               "revisions": [...], "conflicts": [...] }
+ * }
+ * Rows keep their stored shape (times as `…AtMs`); drafts and meta are device-local and not included.
+ * A reader refuses a higher formatVersion rather than guessing.
+ */
+import * as v from 'valibot';
+import { lineText, oneOf, timeMs, uuid } from '../schema/fields.ts';
+import { recordMetaSchema } from '../schema/records.ts';
+import {
+  PHOTO_OWNER_TABLES,
+  REVISION_KINDS,
+  VERSIONED_TABLES,
+  type ConflictRecord,
+  type GeometryRecord,
+  type InspectionRecord,
+  type InstallationRecord,
+  type PhotoRecord,
+  type ReflectorRecord,
+  type RevisionRecord,
+  type SiteRecord,
+} from '../types.ts';
+
+export const BACKUP_FORMAT = 'glintmark-backup';
+export const BACKUP_FORMAT_VERSION = 1;
+
+/** A photo row in a backup: the stored row with the blob replaced by its bytes in base64. */
+export type BackupPhoto = Omit<PhotoRecord, 'blob'> & { dataBase64: string };
+/** A conflict row in a backup; a photo version inside `other` carries dataBase64 instead of blob. */
+export type BackupConflict = ConflictRecord;
+
+export interface BackupTables {
+  sites: SiteRecord[];
+  reflectors: ReflectorRecord[];
+  geometries: GeometryRecord[];
+  installations: InstallationRecord[];
+  inspections: InspectionRecord[];
+  photos: BackupPhoto[];
+  revisions: RevisionRecord[];
+  conflicts: BackupConflict[];
+}
+
+export interface BackupDocument {
+  format: typeof BACKUP_FORMAT;
+  formatVersion: typeof BACKUP_FORMAT_VERSION;
+  exportedAtUtc: string;
+  app: { name: string; version: string; schemaVersion: number };
+  tables: BackupTables;
+}
+
+export const BACKUP_TABLES = ['sites', 'reflectors', 'geometries', 'installations', 'inspections', 'photos', 'revisions', 'conflicts'] as const;
+export type BackupTable = (typeof BACKUP_TABLES)[number];
+
+const tableList = (name: string) => v.array(v.unknown(), `the backup's ${name} list is missing or not a list`);
+
+/** The envelope; rows are checked one by one afterwards so every message can name its row. */
+export const envelopeSchema = v.object({
+  format: v.literal(BACKUP_FORMAT),
+  formatVersion: v.literal(BACKUP_FORMAT_VERSION),
+  exportedAtUtc: v.pipe(v.string('exportedAtUtc must be text'), v.isoTimestamp('exportedAtUtc must be an ISO 8601 time')),
+  app: v.object({ name: v.string('app.name must be text'), version: v.string('app.version must be text'), schemaVersion: v.number() }),
+  tables: v.object(Object.fromEntries(BACKUP_TABLES.map((t) => [t, tableList(t)])) as Record<BackupTable, ReturnType<typeof tableList>>),
+});
+
+export const photoRowSchema = v.strictObject({
+  ...recordMetaSchema.entries,
+  ownerTable: oneOf('photo owner table', PHOTO_OWNER_TABLES),
+  ownerId: uuid('photo owner id'),
+  role: lineText('photo role', { min: 1, max: 32 }),
+  mime: v.pipe(v.string('mime must be text'), v.regex(/^image\/[a-z0-9.+-]+$/, 'mime must be an image type such as image/jpeg')),
+  bytes: v.pipe(v.number('bytes must be a number'), v.integer('bytes must be a whole number'), v.minValue(1, 'bytes must be 1 or more')),
+  takenAtMs: timeMs('photo time'),
+  dataBase64: v.string('the photo data (dataBase64) must be text'),
+});
+
+const changeSchema = v.strictObject({ field: v.string('change field must be text'), before: v.unknown(), after: v.unknown() });
+
+export const revisionRowSchema = v.strictObject({
+  id: uuid('revision id'),
+  table: oneOf('revision table', VERSIONED_TABLES),
+  recordId: uuid('revision record id'),
+  rev: v.pipe(v.number('rev must be a number'), v.integer('rev must be a whole number'), v.minValue(1, 'rev must be 1 or more')),
+  atMs: timeMs('revision time'),
+  by: lineText('revision author', { max: 80 }),
+  kind: oneOf('revision kind', REVISION_KINDS),
+  changes: v.array(changeSchema, 'revision changes must be a list'),
+  snapshot: v.nullable(v.record(v.string(), v.unknown(), 'revision snapshot must be an object')),
+  cascadeOf: v.nullable(uuid('revision cascadeOf')),
+});
+
+export const conflictRowSchema = v.strictObject({
+  id: uuid('conflict id'),
+  table: oneOf('conflict table', VERSIONED_TABLES),
+  recordId: uuid('conflict record id'),
+  reason: v.string('conflict reason must be text'),
+  kept: oneOf('conflict kept side', ['local', 'incoming'] as const),
+  other: v.record(v.string(), v.unknown(), 'conflict other version must be an object'),
+  otherRevisions: v.array(revisionRowSchema, 'conflict otherRevisions must be a list'),
+  detectedAtMs: timeMs('conflict time'),
+  resolvedAtMs: v.nullable(timeMs('conflict resolution time')),
+});

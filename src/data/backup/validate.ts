@@ -1,0 +1,174 @@
+/**
+ * Whole-document validation of a backup, before anything is written. Each failure class has its own
+ * BackupError kind and a plain message; every issue names its row (e.g. "sites[3] (MF-05).latDeg").
+ */
+import * as v from 'valibot';
+import { base64DecodedLength } from '../base64.ts';
+import { BackupError, formatSize, type Issue } from '../errors.ts';
+import { DEFAULT_MAX_PHOTO_BYTES } from '../repo/photos.ts';
+import { toIssues } from '../schema/fields.ts';
+import { rowIssues } from '../schema/validate.ts';
+import { ENTITY_TABLES } from '../types.ts';
+import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, conflictRowSchema, envelopeSchema, photoRowSchema, revisionRowSchema, type BackupDocument, type BackupTable, type BackupTables } from './format.ts';
+
+export interface BackupCheckOptions {
+  /** Largest photo accepted, bytes (default DEFAULT_MAX_PHOTO_BYTES). */
+  maxPhotoBytes?: number;
+  /** Check that every reference points into the document (default true; merge checks against document + device). */
+  checkReferences?: boolean;
+}
+
+/**
+ * True when `text` starts like JSON but ends inside a string or an open object/array: the usual result
+ * of a copy cut short. Independent of the engine's JSON.parse wording.
+ */
+export function looksTruncated(text: string): boolean {
+  const t = text.trim();
+  if (!t.startsWith('{') && !t.startsWith('[')) return false;
+  let depth = 0;
+  let inString = false;
+  for (let i = 0; i < t.length; i++) {
+    const c = t[i];
+    if (inString) {
+      if (c === '\\') i++;
+      else if (c === '"') inString = false;
+    } else if (c === '"') inString = true;
+    else if (c === '{' || c === '[') depth++;
+    else if (c === '}' || c === ']') depth--;
+  }
+  return inString || depth > 0;
+}
+
+function parseText(text: string): unknown {
+  if (text.trim() === '') throw new BackupError('not-json', 'The file is empty; it is not a Glintmark backup.');
+  try {
+    return JSON.parse(text) as unknown;
+  } catch {
+    if (looksTruncated(text)) {
+      throw new BackupError('truncated', 'The backup file is incomplete (it ends in the middle of the data), probably cut off while copying. Nothing was restored; copy the file again.');
+    }
+    const start = JSON.stringify(text.trim().slice(0, 12));
+    throw new BackupError('not-json', `This file is not a Glintmark backup: it is not JSON (it starts with ${start}). Nothing was restored.`);
+  }
+}
+
+function checkEnvelope(data: unknown): BackupDocument {
+  const o = (typeof data === 'object' && data !== null && !Array.isArray(data) ? data : {}) as Record<string, unknown>;
+  if (o.format !== BACKUP_FORMAT) {
+    throw new BackupError('wrong-format', `This file is not a Glintmark backup (its format is ${JSON.stringify(o.format ?? null)}, expected "${BACKUP_FORMAT}"). Nothing was restored.`);
+  }
+  if (o.formatVersion !== BACKUP_FORMAT_VERSION) {
+    const newer = typeof o.formatVersion === 'number' && o.formatVersion > BACKUP_FORMAT_VERSION;
+    throw new BackupError(
+      'wrong-version',
+      newer
+        ? `This backup was made by a newer Glintmark (backup format ${String(o.formatVersion)}; this app reads format ${BACKUP_FORMAT_VERSION}). Update the app, then restore. Nothing was restored.`
+        : `This backup has an unknown format version (${JSON.stringify(o.formatVersion ?? null)}); this app reads format ${BACKUP_FORMAT_VERSION}. Nothing was restored.`,
+    );
+  }
+  const r = v.safeParse(envelopeSchema, data);
+  if (!r.success) throw fail('invalid-record', 'its header or table lists are damaged', toIssues(r.issues));
+  return data as BackupDocument;
+}
+
+function fail(kind: BackupError['kind'], what: string, issues: Issue[]): BackupError {
+  const shown = issues.slice(0, 5).map((i) => `${i.path}: ${i.message}`).join('; ');
+  const more = issues.length > 5 ? ` (and ${issues.length - 5} more)` : '';
+  return new BackupError(kind, `The backup was not restored: ${what}. ${shown}${more}`, issues);
+}
+
+const rowName = (table: string, i: number, row: unknown): string => {
+  const r = (row ?? {}) as Record<string, unknown>;
+  const hint = typeof r.code === 'string' ? r.code : typeof r.label === 'string' ? r.label : '';
+  return `${table}[${i}]${hint ? ` (${hint})` : ''}`;
+};
+
+function recordIssues(tables: BackupTables): Issue[] {
+  const issues: Issue[] = [];
+  for (const t of ENTITY_TABLES) tables[t].forEach((row, i) => issues.push(...rowIssues(t, row, rowName(t, i, row))));
+  const simple: [BackupTable, v.GenericSchema][] = [['photos', photoRowSchema], ['revisions', revisionRowSchema], ['conflicts', conflictRowSchema]];
+  for (const [t, schema] of simple) {
+    (tables[t] as unknown[]).forEach((row, i) => {
+      const r = v.safeParse(schema, row);
+      if (!r.success) issues.push(...toIssues(r.issues, rowName(t, i, row)));
+    });
+  }
+  tables.photos.forEach((p, i) => {
+    const n = base64DecodedLength(p.dataBase64);
+    if (n < 0) issues.push({ path: `photos[${i}].dataBase64`, message: 'is not valid base64' });
+    else if (n !== p.bytes) issues.push({ path: `photos[${i}].bytes`, message: `says ${p.bytes} bytes but the data holds ${n}` });
+  });
+  return issues;
+}
+
+function duplicateIssues(tables: BackupTables): Issue[] {
+  const issues: Issue[] = [];
+  for (const t of BACKUP_TABLES) {
+    const seen = new Map<string, number>();
+    (tables[t] as { id: string }[]).forEach((row, i) => {
+      const first = seen.get(row.id);
+      if (first !== undefined) issues.push({ path: `${t}[${i}]`, message: `repeats the id ${row.id} of ${t}[${first}]` });
+      else seen.set(row.id, i);
+    });
+  }
+  const codes = new Map<string, number>();
+  tables.sites.forEach((s, i) => {
+    if (s.deletedAtMs !== null) return;
+    const key = s.code.toLowerCase();
+    const first = codes.get(key);
+    if (first !== undefined) issues.push({ path: `sites[${i}] (${s.code})`, message: `uses the same code as the live site sites[${first}]` });
+    else codes.set(key, i);
+  });
+  return issues;
+}
+
+function photoSizeIssues(tables: BackupTables, maxBytes: number): Issue[] {
+  return tables.photos.flatMap((p, i) =>
+    p.bytes > maxBytes ? [{ path: `photos[${i}]`, message: `is ${formatSize(p.bytes)}, more than the ${formatSize(maxBytes)} photo limit` }] : [],
+  );
+}
+
+/** Issues for every reference that `has` cannot resolve. */
+export function referenceIssues(tables: BackupTables, has: (table: BackupTable, id: string) => boolean): Issue[] {
+  const issues: Issue[] = [];
+  const need = (path: string, table: BackupTable, id: string) => {
+    if (!has(table, id)) issues.push({ path, message: `points to ${table} ${id}, which is not in the backup or on this device` });
+  };
+  tables.reflectors.forEach((r, i) => need(`reflectors[${i}].siteId`, 'sites', r.siteId));
+  tables.geometries.forEach((g, i) => {
+    need(`geometries[${i}].siteId`, 'sites', g.siteId);
+    if (g.reflectorId !== null) need(`geometries[${i}].reflectorId`, 'reflectors', g.reflectorId);
+  });
+  for (const t of ['installations', 'inspections'] as const) {
+    tables[t].forEach((x, i) => {
+      need(`${t}[${i}].siteId`, 'sites', x.siteId);
+      need(`${t}[${i}].reflectorId`, 'reflectors', x.reflectorId);
+      x.photoIds.forEach((p, k) => need(`${t}[${i}].photoIds[${k}]`, 'photos', p));
+    });
+  }
+  tables.installations.forEach((x, i) => x.geometryIds.forEach((g, k) => need(`installations[${i}].geometryIds[${k}]`, 'geometries', g)));
+  tables.photos.forEach((p, i) => need(`photos[${i}].ownerId`, p.ownerTable, p.ownerId));
+  tables.revisions.forEach((r, i) => need(`revisions[${i}].recordId`, r.table, r.recordId));
+  return issues;
+}
+
+/**
+ * Parse (when given text) and check a whole backup document. Throws BackupError with kind:
+ * not-json, truncated, wrong-format, wrong-version, invalid-record, duplicate-id, photo-too-large, dangling-reference.
+ */
+export function validateBackup(input: unknown, opts: BackupCheckOptions = {}): BackupDocument {
+  const doc = checkEnvelope(typeof input === 'string' ? parseText(input) : input);
+  const t = doc.tables;
+  const rec = recordIssues(t);
+  if (rec.length) throw fail('invalid-record', `${rec.length} problem(s) in its records`, rec);
+  const dup = duplicateIssues(t);
+  if (dup.length) throw fail('duplicate-id', 'some records appear twice', dup);
+  const big = photoSizeIssues(t, opts.maxPhotoBytes ?? DEFAULT_MAX_PHOTO_BYTES);
+  if (big.length) throw fail('photo-too-large', 'some photos are too large', big);
+  if (opts.checkReferences !== false) {
+    const ids = new Map(BACKUP_TABLES.map((n) => [n, new Set((t[n] as { id: string }[]).map((r) => r.id))]));
+    const refs = referenceIssues(t, (table, id) => ids.get(table)?.has(id) ?? false);
+    if (refs.length) throw fail('dangling-reference', 'some records point to records that are missing', refs);
+  }
+  return doc;
+}
