@@ -1,0 +1,69 @@
+import { describe, expect, it } from 'vitest';
+import { rcsInReflectorFrame } from '../../src/core/reflector/pattern.ts';
+import { peakRcsM2 } from '../../src/core/reflector/trihedral.ts';
+import { TRIHEDRAL_BORESIGHT_ELEVATION_DEG } from '../../src/core/units.ts';
+import { runCli } from './run.ts';
+
+type Obj = Record<string, unknown>;
+const BASE = ['rcs', '--shape', 'square', '--edge', '0.6', '--wavelength', '0.0555'];
+
+/** A bad-input run: status 2, nothing on stdout, exactly one line on stderr without a stack trace. */
+async function expectUsageError(argv: string[], message: RegExp) {
+  const r = await runCli(argv);
+  expect(r.code).toBe(2);
+  expect(r.stdout).toBe('');
+  expect(r.stderr.trim().split('\n')).toHaveLength(1);
+  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
+  expect(r.stderr).toMatch(message);
+}
+
+describe('glintmark rcs', () => {
+  it('prints { rcsM2, rcsDbsm, lossDb } equal to the core pattern', async () => {
+    const r = await runCli([...BASE, '--elevation', '42', '--azimuth-offset', '-7.5', '--json']);
+    expect(r.code).toBe(0);
+    const j = r.json() as Obj;
+    const s = rcsInReflectorFrame({ shape: 'square', edgeM: 0.6, wavelengthM: 0.0555 }, { elevationDeg: 42, azimuthOffsetDeg: -7.5 });
+    expect(j.rcsM2).toBe(s.rcsM2);
+    expect(j.rcsDbsm).toBe(s.rcsDbsm);
+    expect(j.lossDb).toBe(s.lossDb);
+    expect(j.outsideCorner).toBe(false);
+    expect(j.warnings).toEqual([]);
+  });
+
+  it('boresight of a 1 m / 1 m triangular gives the 4π/3 m² unit check and no loss', async () => {
+    // Robertson 1947 peak formula; unit check value from ../shared/REFERENCES.md §1. Edge = λ: warns (a < 10 λ).
+    const argv = ['rcs', '--shape', 'triangular', '--edge', '1', '--wavelength', '1', '--elevation', String(TRIHEDRAL_BORESIGHT_ELEVATION_DEG), '--azimuth-offset', '0', '--json'];
+    const j = (await runCli(argv)).json() as Obj;
+    expect(j.rcsM2 as number).toBeCloseTo(4.18879, 5);
+    expect(j.lossDb as number).toBeLessThan(1e-9);
+    expect(j.peakRcsM2).toBe(peakRcsM2({ shape: 'triangular', edgeM: 1, wavelengthM: 1 }));
+    expect((j.warnings as string[])[0]).toMatch(/wavelengths/);
+  });
+
+  it('outside the corner: rcsM2 0, rcsDbsm and lossDb null, outsideCorner true', async () => {
+    const j = (await runCli([...BASE, '--elevation', '30', '--azimuth-offset', '60', '--json'])).json() as Obj;
+    expect(j).toMatchObject({ rcsM2: 0, rcsDbsm: null, lossDb: null, outsideCorner: true });
+  });
+
+  it('prints a readable table without --json', async () => {
+    const r = await runCli([...BASE, '--elevation', '42', '--azimuth-offset', '-7.5']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/^RCS\s+\d+\.\d+ m² = \d+\.\d+ dBsm$/m);
+    expect(r.stdout).toMatch(/loss below peak\s+\d+\.\d+ dB/);
+    const o = await runCli([...BASE, '--elevation', '-5', '--azimuth-offset', '0']);
+    expect(o.stdout).toMatch(/outside the corner/);
+  });
+
+  it.each([
+    [['rcs', '--shape', 'square', '--edge', '0.6', '--elevation', '40', '--azimuth-offset', '0'], /missing wavelength/],
+    [[...BASE, '--azimuth-offset', '0'], /missing --elevation/],
+    [['rcs', '--edge', '0.6', '--wavelength', '0.05', '--elevation', '40', '--azimuth-offset', '0'], /missing --shape/],
+    [[...BASE, '--elevation', 'forty', '--azimuth-offset', '0'], /--elevation must be a number, got "forty"/],
+    [[...BASE, '--elevation', '95', '--azimuth-offset', '0'], /elevation must be in \[-90, 90\]°, got 95/],
+    [[...BASE, '--elevation', '40', '--azimuth-offset', '181'], /azimuth-offset must be in \[-180, 180\]°, got 181/],
+    [['rcs', '--shape', 'round', '--edge', '1', '--wavelength', '0.05', '--elevation', '40', '--azimuth-offset', '0'], /shape must be one of triangular, square, got "round"/],
+    [['rcs', '--shape', 'square', '--edge', '0', '--wavelength', '0.05', '--elevation', '40', '--azimuth-offset', '0'], /edge must be greater than 0 m, got 0/],
+    [[...BASE, '--elevation', '40', '--azimuth-offset', '0', '--tilt', '3'], /unknown option --tilt/],
+    [[...BASE, '--elevation', '40', '--azimuth-offset', '0', '--elevation', '41'], /--elevation given 2 times/],
+  ])('rejects bad input %#', async (argv, msg) => expectUsageError(argv, msg));
+});
