@@ -5,8 +5,8 @@
  * Method (ours; the pattern is that of pattern.ts): starts at the aim for the normalised mean of the lines of sight
  * (roll 0, and rolled ±45°) and at each pass's exact aim; a coarse Nelder–Mead on max lossDb (8° simplex) from each,
  * then the two best results restarted with simplex steps 2°, 0.5°, 0.1°, 0.02° (restarts shake the simplex off the
- * kinks where two losses are equal). A line of sight outside the corner counts as 1000 dB plus its angle off boresight, so the search still
- * has a slope there. Deterministic; a few thousand objective evaluations.
+ * kinks where two losses are equal). A line of sight outside the corner counts as 1000 dB plus its angle off
+ * boresight, so the search still has a slope there. Deterministic; a few thousand objective evaluations.
  * Validity: a local search from several starts — the best found, not a proven global optimum; loss is the
  * physical-optics loss, independent of a and λ.
  */
