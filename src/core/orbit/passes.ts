@@ -12,6 +12,7 @@
  * Geometry at the root, in the site's east-north-up frame (up = ellipsoid normal):
  *   incidenceDeg = angle(up, ρ̂);  reflectorAzimuthDeg = atan2(ρ̂_E, ρ̂_N);  headingDeg = atan2(v_E, v_N);
  *   look side: the site is to the right of the velocity when (v × ρ)·up > 0 (ρ from site to satellite);
+ *   groundTrackHeadingDeg: the same on the horizontal of the sub-satellite point (differs by meridian convergence);
  *   direction: ascending when the satellite's velocity has a northward component at its own position;
  *   baseTiltDeg = (90° − incidence) − atan(1/√2)  (see ../geometry/pointing.ts).
  * Validity: SGP4 accuracy (about 1 km a day from epoch); times are good to ROOT_TOL_S of the model's minimum.
@@ -37,6 +38,12 @@ export interface Pass {
   incidenceDeg: number;
   /** Azimuth of the satellite's Earth-fixed velocity on the site's horizontal, degrees true, [0, 360). */
   headingDeg: number;
+  /**
+   * Azimuth of the same velocity on the horizontal of the sub-satellite point, degrees true, [0, 360): the
+   * ground-track heading as orbit tables and image metadata usually give it. It differs from headingDeg by the
+   * convergence of meridians between the two points, ≈ Δλ·sin φ: several degrees at mid and high latitudes.
+   */
+  groundTrackHeadingDeg: number;
   /** Side of the ground track the site is on (= the radar's look side for this pass). */
   look: LookSide;
   /** Azimuth of the line of sight site → satellite, degrees true, [0, 360): where the reflector must face. */
@@ -99,14 +106,15 @@ function geometryAt(state: OrbitState, site: Site) {
   const los = ecefToEnu(site.basis, rho);
   const vel = ecefToEnu(site.basis, v);
   const satGeo = ecefToGeodetic(scale(state.positionEcefKm, 1000));
-  const northward = dot(v, enuBasis(satGeo.latDeg, satGeo.lonDeg).north);
+  const velSub = ecefToEnu(enuBasis(satGeo.latDeg, satGeo.lonDeg), v);
   const incidenceDeg = toDeg(Math.atan2(Math.hypot(los[0], los[1]), los[2]));
   return {
     incidenceDeg,
     headingDeg: normalizeAzimuthDeg(toDeg(Math.atan2(vel[0], vel[1]))),
+    groundTrackHeadingDeg: normalizeAzimuthDeg(toDeg(Math.atan2(velSub[0], velSub[1]))),
     reflectorAzimuthDeg: normalizeAzimuthDeg(toDeg(Math.atan2(los[0], los[1]))),
     look: (dot(cross(v, rho), site.basis.up) > 0 ? 'right' : 'left') as LookSide,
-    direction: (northward >= 0 ? 'ascending' : 'descending') as PassDirection,
+    direction: (velSub[1] >= 0 ? 'ascending' : 'descending') as PassDirection,
     slantRangeKm: norm(rho),
     baseTiltDeg: 90 - incidenceDeg - TRIHEDRAL_BORESIGHT_ELEVATION_DEG,
   };
@@ -206,6 +214,7 @@ export function findPasses(set: TleSet, site: GeodeticPosition, window: PassWind
             direction: g.direction,
             incidenceDeg: g.incidenceDeg,
             headingDeg: g.headingDeg,
+            groundTrackHeadingDeg: g.groundTrackHeadingDeg,
             look: g.look,
             reflectorAzimuthDeg: g.reflectorAzimuthDeg,
             baseTiltDeg: g.baseTiltDeg,
