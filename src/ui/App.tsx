@@ -10,9 +10,16 @@ import { IonReactRouter } from '@ionic/react-router';
 import { Redirect, Route } from 'react-router-dom';
 import { TABS } from './tabs.ts';
 import { PlanPage } from './pages/plan/PlanPage.tsx';
-import { PassesPage } from './pages/passes/PassesPage.tsx';
-import { AlignPage } from './pages/align/AlignPage.tsx';
-import { LogbookPage } from './pages/logbook/LogbookPage.tsx';
+import { lazy, Suspense, type ComponentType } from 'react';
+
+// Only the Plan screen is in the first bundle; the other tabs load on first visit (and are precached for offline use).
+const page = (load: () => Promise<Record<string, ComponentType>>, name: string) =>
+  lazy(async () => ({ default: (await load())[name] }));
+const PassesPage = page(() => import('./pages/passes/PassesPage.tsx'), 'PassesPage');
+const AlignPage = page(() => import('./pages/align/AlignPage.tsx'), 'AlignPage');
+const LogbookPage = page(() => import('./pages/logbook/LogbookPage.tsx'), 'LogbookPage');
+
+const Loading = () => <p className="ion-padding">Loading…</p>;
 
 setupIonicReact({ mode: 'md', animated: false });
 
@@ -23,9 +30,9 @@ export function App() {
         <IonTabs>
           <IonRouterOutlet>
             <Route exact path="/plan" component={PlanPage} />
-            <Route exact path="/passes" component={PassesPage} />
-            <Route exact path="/align" component={AlignPage} />
-            <Route path="/logbook" component={LogbookPage} />
+            <Route exact path="/passes" render={() => <Suspense fallback={<Loading />}><PassesPage /></Suspense>} />
+            <Route exact path="/align" render={() => <Suspense fallback={<Loading />}><AlignPage /></Suspense>} />
+            <Route path="/logbook" render={() => <Suspense fallback={<Loading />}><LogbookPage /></Suspense>} />
             <Route exact path="/">
               <Redirect to="/plan" />
             </Route>
