@@ -1,0 +1,158 @@
+/**
+ * Merge a backup from another phone into this one, in ONE transaction, dropping nothing.
+ *
+ * Rows match by id. For each incoming row of sites … inspections and photos:
+ *  - not here → added;
+ *  - same content (photo bytes never change after creation, so photos compare by their fields) → unchanged;
+ *  - higher rev → the incoming row replaces ours ("updated"); if our current version is not in the incoming
+ *    history (both phones edited), ours is kept in the conflicts table and reported;
+ *  - lower rev → ours stays ("localNewer"); if the incoming version is not in our history, it is kept as a conflict;
+ *  - same rev, different content → ours stays and the incoming version is kept as a conflict.
+ *    updatedAtMs is not used to pick a side: phone clocks drift, and a silent pick would drop an edit.
+ * A live incoming site whose code is already used by another live local site is added under a free code
+ * ("MF-01~2", written as a merge revision) and reported, so its children keep their parent.
+ * Revisions are added when missing (rows are immutable; a differing row with the same id is a conflict);
+ * the history of an incoming version that was not applied travels with its conflict row instead.
+ */
+import { storedRows } from './backup.ts';
+import type { BackupTable } from './backup/format.ts';
+import { BACKUP_TABLES } from './backup/format.ts';
+import { referenceIssues, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import type { GlintmarkDb } from './db.ts';
+import { deepEqual } from './equal.ts';
+import { BackupError } from './errors.ts';
+import { resolveContext, type WriteContext } from './repo/context.ts';
+import { makeRevision } from './repo/revisions.ts';
+import { liveSiteWithCode } from './repo/sites.ts';
+import { VERSIONED_TABLES, type ConflictRecord, type RevisionRecord, type VersionedTable } from './types.ts';
+
+export interface MergeConflict {
+  table: BackupTable;
+  id: string;
+  reason: string;
+}
+
+export interface TableMergeReport {
+  added: number;
+  updated: number;
+  unchanged: number;
+  /** Ours was already newer and contains the incoming version in its history. */
+  localNewer: number;
+  conflicts: MergeConflict[];
+}
+
+export type MergeReport = Record<BackupTable, TableMergeReport>;
+
+export type MergeOptions = WriteContext & Pick<BackupCheckOptions, 'maxPhotoBytes'>;
+
+type Row = Record<string, unknown> & { id: string; rev: number; updatedAtMs: number; deletedAtMs: number | null };
+
+const withoutBlob = (r: Record<string, unknown>) => {
+  const { blob: _blob, ...rest } = r;
+  return rest;
+};
+
+/** The revision that produced `row` (same rev and time), if the list has it. */
+const headOf = (row: Row, revs: readonly RevisionRecord[]) => revs.find((r) => r.rev === row.rev && r.atMs === row.updatedAtMs);
+
+export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts: MergeOptions): Promise<MergeReport> {
+  const { by, nowMs } = resolveContext(opts);
+  const doc = validateBackup(input, { maxPhotoBytes: opts.maxPhotoBytes, checkReferences: false });
+  const rows = storedRows(doc);
+  const incomingRevs = new Map<string, RevisionRecord[]>();
+  for (const r of doc.tables.revisions) incomingRevs.set(`${r.table}:${r.recordId}`, [...(incomingRevs.get(`${r.table}:${r.recordId}`) ?? []), r]);
+  const revsOf = (t: VersionedTable, id: string) => incomingRevs.get(`${t}:${id}`) ?? [];
+
+  const report = Object.fromEntries(
+    BACKUP_TABLES.map((t) => [t, { added: 0, updated: 0, unchanged: 0, localNewer: 0, conflicts: [] }]),
+  ) as unknown as MergeReport;
+
+  return db.transaction('rw', [...BACKUP_TABLES], async () => {
+    const local = new Map<BackupTable, Set<string>>();
+    for (const t of BACKUP_TABLES) local.set(t, new Set((await db.table(t).toCollection().primaryKeys()) as string[]));
+    const docIds = new Map(BACKUP_TABLES.map((t) => [t, new Set(rows[t].map((r) => r.id as string))]));
+    const refs = referenceIssues(doc.tables, (t, id) => docIds.get(t)?.has(id) === true || local.get(t)?.has(id) === true);
+    if (refs.length) throw new BackupError('dangling-reference', `The backup was not merged: ${refs[0].path} ${refs[0].message}.`, refs);
+
+    const skipRevisionsOf = new Set<string>();
+    const keepConflict = async (table: VersionedTable, recordId: string, kept: 'local' | 'incoming', other: Record<string, unknown>, otherRevisions: RevisionRecord[], reason: string) => {
+      const existing = await db.conflicts.where('[table+recordId]').equals([table, recordId]).toArray();
+      if (!existing.some((c) => deepEqual(withoutBlob(c.other), withoutBlob(other)))) {
+        const c: ConflictRecord = { id: crypto.randomUUID(), table, recordId, reason, kept, other, otherRevisions, detectedAtMs: nowMs, resolvedAtMs: null };
+        await db.conflicts.add(c);
+      }
+      report[table].conflicts.push({ table, id: recordId, reason });
+    };
+
+    /** Give a live incoming site a free code when its code is taken by another live local site. */
+    const freeCode = async (site: Row): Promise<Row> => {
+      if (site.deletedAtMs !== null) return site;
+      const code = site.code as string;
+      const other = await liveSiteWithCode(db, code, site.id);
+      if (!other) return site;
+      let n = 2;
+      let candidate = `${code.slice(0, 28)}~${n}`;
+      while (await liveSiteWithCode(db, candidate, site.id)) candidate = `${code.slice(0, 28)}~${++n}`;
+      const renamed = { ...site, code: candidate, rev: site.rev + 1, updatedAtMs: nowMs };
+      const changes = [{ field: 'code', before: code, after: candidate }];
+      await db.revisions.add(makeRevision({ table: 'sites', recordId: site.id, rev: renamed.rev, atMs: nowMs, by, kind: 'update', changes }));
+      const reason = `site code "${code}" is already used by local site ${other.id}; the incoming site was saved as "${candidate}". Rename or combine them.`;
+      await keepConflict('sites', site.id, 'incoming', site, [], reason);
+      return renamed;
+    };
+
+    for (const table of VERSIONED_TABLES) {
+      const r = report[table];
+      for (const incoming of rows[table] as Row[]) {
+        const mine = (await db.table(table).get(incoming.id)) as Row | undefined;
+        const theirRevs = revsOf(table, incoming.id);
+        if (!mine) {
+          await db.table(table).add(table === 'sites' ? await freeCode(incoming) : incoming);
+          r.added++;
+          continue;
+        }
+        if (deepEqual(withoutBlob(mine), withoutBlob(incoming))) {
+          r.unchanged++;
+          continue;
+        }
+        const myRevs = await db.revisions.where('[table+recordId]').equals([table, incoming.id]).toArray();
+        if (incoming.rev > mine.rev) {
+          const myHead = headOf(mine, myRevs);
+          await db.table(table).put(table === 'sites' ? await freeCode(incoming) : incoming);
+          r.updated++;
+          if (!myHead || !theirRevs.some((x) => x.id === myHead.id)) {
+            await keepConflict(table, incoming.id, 'incoming', mine, [], `edited on both phones: incoming revision ${incoming.rev} replaced local revision ${mine.rev}; the local version is kept here`);
+          }
+        } else if (incoming.rev < mine.rev) {
+          const theirHead = headOf(incoming, theirRevs);
+          if (theirHead && myRevs.some((x) => x.id === theirHead.id)) r.localNewer++;
+          else {
+            skipRevisionsOf.add(`${table}:${incoming.id}`);
+            await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `edited on both phones: local revision ${mine.rev} kept; the incoming revision ${incoming.rev} is not in its history`);
+          }
+        } else {
+          skipRevisionsOf.add(`${table}:${incoming.id}`);
+          await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `revision ${mine.rev} differs between the phones; the local version is kept`);
+        }
+      }
+    }
+
+    for (const rev of doc.tables.revisions) {
+      if (skipRevisionsOf.has(`${rev.table}:${rev.recordId}`)) continue;
+      const mine = await db.revisions.get(rev.id);
+      if (!mine) {
+        await db.revisions.add(rev);
+        report.revisions.added++;
+      } else if (deepEqual(mine, rev)) report.revisions.unchanged++;
+      else report.revisions.conflicts.push({ table: 'revisions', id: rev.id, reason: 'a history row with this id differs between the phones; the local row is kept' });
+    }
+    for (const c of rows.conflicts as unknown as ConflictRecord[]) {
+      if (await db.conflicts.get(c.id)) report.conflicts.unchanged++;
+      else {
+        await db.conflicts.add(c);
+        report.conflicts.added++;
+      }
+    }
+    return report;
+  });
+}
