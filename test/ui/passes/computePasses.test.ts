@@ -23,6 +23,7 @@ import {
   type PassQuery,
 } from '../../../src/ui/pages/passes/computePasses.ts';
 import type { StoredElementSet } from '../../../src/ui/pages/passes/elementsStore.ts';
+import { DEFAULT_WORKFLOW } from '../../../src/ui/state/workflow.ts';
 
 /** toFixed(2) on the handed-over heading moves the aim by at most 0.005°; 0.006° covers float noise. */
 const TOL_HANDOVER_DEG = 0.006;
@@ -144,6 +145,12 @@ describe('hand-over to the Plan screen', () => {
     const b = { ...a, direction: 'ascending' as const, incidenceDeg: '30.00' };
     expect(appendGeometry([a], b)).toEqual([a, b]);
     expect(appendGeometry([a, b], { ...a })).toEqual([a, b]);
+  });
+  it('drops the Plan screen’s untouched starting example when adding, but keeps a typed geometry', () => {
+    const a = geometryFromTrack(track);
+    expect(appendGeometry(DEFAULT_WORKFLOW.geometries, a)).toEqual([a]);
+    const typed = { ...DEFAULT_WORKFLOW.geometries[0], incidenceDeg: '38' };
+    expect(appendGeometry([typed], a)).toEqual([typed, a]);
   });
   it('loss at the track’s own aim is zero and grows away from it', () => {
     const aim = aimForPass({ incidenceDeg: track.incidenceDeg, headingDeg: planHeadingDeg(track), look: track.look });

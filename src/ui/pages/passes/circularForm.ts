@@ -24,6 +24,8 @@ export interface CircularResult {
   /** A combination the model rejects (orbit never reaches the latitude, look past the horizon). */
   error: string | null;
   geometry: CircularOrbitGeometry | null;
+  /** The inclination as read, degrees (null until the form is valid). */
+  inclinationDeg: number | null;
 }
 
 /** Low Earth orbits only: below ~150 km nothing stays up, above 2000 km is not a SAR orbit this model is for. */
@@ -39,7 +41,7 @@ export function computeCircular(f: CircularForm): CircularResult {
       : parseField('Look angle', f.angleDeg, (n, v) => requireInRange(n, v, { min: 0, max: 90, maxInclusive: false, unit: '°' }));
   const errors = { altitudeKm: alt.error, inclinationDeg: inc.error, latDeg: lat.error, angleDeg: ang.error };
   if (alt.value === undefined || inc.value === undefined || lat.value === undefined || ang.value === undefined) {
-    return { errors, error: null, geometry: null };
+    return { errors, error: null, geometry: null, inclinationDeg: null };
   }
   try {
     const geometry = circularOrbitGeometry({
@@ -49,9 +51,9 @@ export function computeCircular(f: CircularForm): CircularResult {
       ...(f.angleKind === 'incidence' ? { incidenceDeg: ang.value } : { lookDeg: ang.value }),
       look: f.look,
     });
-    return { errors, error: null, geometry };
+    return { errors, error: null, geometry, inclinationDeg: inc.value };
   } catch (e) {
-    return { errors, error: e instanceof Error ? e.message : String(e), geometry: null };
+    return { errors, error: e instanceof Error ? e.message : String(e), geometry: null, inclinationDeg: null };
   }
 }
 

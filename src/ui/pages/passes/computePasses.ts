@@ -14,7 +14,7 @@ import { misalignment } from '../../../core/reflector/misalignment.ts';
 import { normalizeAzimuthDeg } from '../../../core/units.ts';
 import { requireIncidenceDeg, requireInRange, requireLatDeg, requireLonDeg } from '../../../core/validate.ts';
 import { parseField } from '../../components/fields.tsx';
-import type { GeometryInput } from '../../state/workflow.ts';
+import { DEFAULT_WORKFLOW, type GeometryInput } from '../../state/workflow.ts';
 import type { StoredElementSet } from './elementsStore.ts';
 
 export const MS_PER_DAY = 86_400_000;
@@ -187,11 +187,18 @@ export function geometryFromTrack(t: DisplayTrack): GeometryInput {
   };
 }
 
-/** Add a geometry to the plan unless the same track is already there (appending twice would double its weight). */
+/**
+ * Add a geometry to the plan unless the same track is already there (appending twice would double its weight).
+ * The Plan screen's untouched starting example is dropped, so "add" on a fresh plan does not keep a made-up pass.
+ */
 export function appendGeometry(list: readonly GeometryInput[], g: GeometryInput): GeometryInput[] {
   const same = (a: GeometryInput) =>
     a.source === g.source && a.satellite === g.satellite && a.direction === g.direction && a.look === g.look && a.incidenceDeg === g.incidenceDeg && a.headingDeg === g.headingDeg;
-  return list.some(same) ? [...list] : [...list, g];
+  const placeholder = DEFAULT_WORKFLOW.geometries[0];
+  const isPlaceholder = (a: GeometryInput) =>
+    a.source === 'typed' && a.label === undefined && a.incidenceDeg === placeholder.incidenceDeg && a.headingDeg === placeholder.headingDeg && a.look === placeholder.look;
+  const kept = list.filter((a) => !isPlaceholder(a));
+  return kept.some(same) ? kept : [...kept, g];
 }
 
 /** Element-set age at `nowMs`, days (negative when the epoch is in the future). */
