@@ -9,6 +9,8 @@ import { IonApp, IonIcon, IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, Io
 import { IonReactRouter } from '@ionic/react-router';
 import { Redirect, Route } from 'react-router-dom';
 import { TABS } from './tabs.ts';
+import { FirstRunSafety } from './components/FirstRunSafety.tsx';
+import { applyTheme } from './state/theme.ts';
 import { PlanPage } from './pages/plan/PlanPage.tsx';
 import { lazy, Suspense, type ComponentType } from 'react';
 
@@ -22,10 +24,12 @@ const LogbookPage = page(() => import('./pages/logbook/LogbookPage.tsx'), 'Logbo
 const Loading = () => <p className="ion-padding">Loading…</p>;
 
 setupIonicReact({ mode: 'md', animated: false });
+applyTheme();
 
 export function App() {
   return (
     <IonApp>
+      <FirstRunSafety />
       <IonReactRouter>
         <IonTabs>
           <IonRouterOutlet>

@@ -35,3 +35,20 @@ describe('Plan screen', () => {
     await ctx.close();
   });
 });
+
+describe('first run', () => {
+  it('shows the safety panel once, until the crew acknowledges it', async () => {
+    const ctx = await phoneContext(browser, { acknowledgeSafety: false });
+    const page = await ctx.newPage();
+    await page.goto(BASE_URL + '/plan');
+    const ack = page.locator('[data-testid="ack-safety"]');
+    await ack.waitFor();
+    expect(await page.locator('ion-modal').innerText()).toMatch(/buried services/);
+    await screenshot(page, 'first-run-safety');
+    await ack.click();
+    await page.reload();
+    await page.locator('[data-testid="result-azimuth"]').waitFor();
+    expect(await ack.count()).toBe(0);
+    await ctx.close();
+  });
+});
