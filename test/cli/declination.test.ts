@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { declination } from '../../src/core/magnetic/declination.ts';
+import { parseIsoInstantMs } from '../../src/cli/commands/declination.ts';
+import { runCli } from './run.ts';
+
+async function expectBadInput(argv: string[], message: RegExp) {
+  const r = await runCli(argv);
+  expect(r.code).toBe(2);
+  expect(r.stdout).toBe('');
+  expect(r.stderr.trim().split('\n')).toHaveLength(1);
+  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
+  expect(r.stderr).toMatch(message);
+}
+
+describe('glintmark declination', () => {
+  it('prints { declinationDeg, inclinationDeg, totalIntensityNt, model } equal to the core', async () => {
+    const r = await runCli(['declination', '--lat', '-80', '--lon', '240', '--height', '100000', '--date', '2027-07-02T12:00:00Z', '--json']);
+    expect(r.code).toBe(0);
+    const j = r.json() as Record<string, unknown>;
+    expect(Object.keys(j).sort()).toEqual(['declinationDeg', 'inclinationDeg', 'model', 'totalIntensityNt']);
+    const c = declination({ latDeg: -80, lonDeg: 240, heightM: 100_000, timeMs: Date.UTC(2027, 6, 2, 12) });
+    if (!c.ok) throw new Error('expected ok');
+    expect(j.declinationDeg).toBe(c.value.declinationDeg);
+    expect(j.inclinationDeg).toBe(c.value.inclinationDeg);
+    expect(j.totalIntensityNt).toBe(c.value.totalIntensityNt);
+    expect(j.model).toBe('WMM2025');
+    // WMM2025 report Table 6 (Chulliat et al. 2025): 2027.5, 100 km, 80° S, 120° W → D 67.93°, I −72.10°.
+    expect(j.declinationDeg as number).toBeCloseTo(67.93, 2);
+    expect(j.inclinationDeg as number).toBeCloseTo(-72.1, 2);
+  });
+
+  it('accepts a bare date (midnight UTC) and prints a table with E/W', async () => {
+    const r = await runCli(['declination', '--lat', '80', '--lon', '0', '--date', '2025-01-01']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/declination\s+1\.28° E/); // Table 6, row 1: D = 1.28°
+  });
+
+  it('outside 2025–2030 → exit 2 with a clear message', async () => {
+    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2030-01-01'], /valid from 2025-01-01 to 2030-01-01/);
+    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2024-12-31T23:59:59Z'], /WMM2025/);
+  });
+
+  it('bad input: missing, non-numeric, out of range, unknown option, garbage or impossible dates', async () => {
+    await expectBadInput(['declination', '--lat', '10', '--date', '2027-01-01'], /missing --lon/);
+    await expectBadInput(['declination', '--lat', 'ten', '--lon', '10', '--date', '2027-01-01'], /--lat must be a number/);
+    await expectBadInput(['declination', '--lat', '95', '--lon', '10', '--date', '2027-01-01'], /--lat must be in \[-90, 90\]°/);
+    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2027-01-01', '--year', '2027'], /unknown option --year/);
+    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', 'July 2 2027'], /--date must be an ISO 8601/);
+    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2027-02-29'], /not a real date/);
+  });
+});
+
+describe('parseIsoInstantMs (strict ISO 8601)', () => {
+  it('parses dates, date-times with Z and offsets, fractions', () => {
+    expect(parseIsoInstantMs('--t', '2027-07-02')).toBe(Date.UTC(2027, 6, 2));
+    expect(parseIsoInstantMs('--t', '2027-07-02T12:00Z')).toBe(Date.UTC(2027, 6, 2, 12));
+    expect(parseIsoInstantMs('--t', '2027-07-02T14:30:15.25+02:30')).toBe(Date.UTC(2027, 6, 2, 12, 0, 15, 250));
+    expect(parseIsoInstantMs('--t', '2028-02-29T00:00:00-05:00')).toBe(Date.UTC(2028, 1, 29, 5));
+  });
+
+  it('rejects what Date.parse would guess at', () => {
+    for (const s of ['2027-02-30', '2027-13-01', '2027-07-02T24:00Z', '2027-07-02T12:60Z', '2027-07-02T12:00:60Z', '2027-07-02T12:00', '2027-7-2', '02/07/2027', '2027-07-02T12:00+25:00', '', 'now']) {
+      expect(() => parseIsoInstantMs('--t', s), s).toThrow(/--t/);
+    }
+    expect(() => parseIsoInstantMs('--t', '2027-07-02', { requireTime: true })).toThrow(/needs a time of day/);
+  });
+});

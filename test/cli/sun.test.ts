@@ -1,0 +1,43 @@
+import { describe, expect, it } from 'vitest';
+import { sunPosition } from '../../src/core/sun/sunPosition.ts';
+import { runCli } from './run.ts';
+
+async function expectBadInput(argv: string[], message: RegExp) {
+  const r = await runCli(argv);
+  expect(r.code).toBe(2);
+  expect(r.stdout).toBe('');
+  expect(r.stderr.trim().split('\n')).toHaveLength(1);
+  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
+  expect(r.stderr).toMatch(message);
+}
+
+describe('glintmark sun', () => {
+  it('prints { azimuthDeg, elevationDeg } equal to the core (apparent elevation)', async () => {
+    const r = await runCli(['sun', '--lat', '39.742476', '--lon', '-105.1786', '--height', '1830.14', '--time', '2003-10-17T12:30:30-07:00', '--json']);
+    expect(r.code).toBe(0);
+    const j = r.json() as Record<string, number>;
+    expect(Object.keys(j).sort()).toEqual(['azimuthDeg', 'elevationDeg']);
+    const p = sunPosition({ latDeg: 39.742476, lonDeg: -105.1786, heightM: 1830.14, timeMs: Date.UTC(2003, 9, 17, 19, 30, 30) });
+    expect(j.azimuthDeg).toBe(p.azimuthDeg);
+    expect(j.elevationDeg).toBe(p.elevationDeg);
+    // NREL SPA worked example (Reda & Andreas 2004, NREL/TP-560-34302 Table A5.1): azimuth 194.34024°, zenith 50.11162°.
+    expect(Math.abs(j.azimuthDeg - 194.34024)).toBeLessThan(0.01);
+    expect(Math.abs(90 - j.elevationDeg - 50.11162)).toBeLessThan(0.01);
+  });
+
+  it('prints a table with the shadow azimuth', async () => {
+    const r = await runCli(['sun', '--lat', '52.61', '--lon', '0.27', '--time', '2027-06-21T12:00:00Z']);
+    expect(r.code).toBe(0);
+    expect(r.stdout).toMatch(/shadow azimuth/);
+  });
+
+  it('bad input: missing, non-numeric, out of range, unknown option, garbage or zone-less times', async () => {
+    await expectBadInput(['sun', '--lat', '52', '--lon', '0'], /missing --time/);
+    await expectBadInput(['sun', '--lat', '52', '--lon', 'east', '--time', '2027-06-21T12:00Z'], /--lon must be a number/);
+    await expectBadInput(['sun', '--lat', '-91', '--lon', '0', '--time', '2027-06-21T12:00Z'], /--lat must be in \[-90, 90\]°/);
+    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00Z', '--refraction', 'no'], /unknown option --refraction/);
+    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', 'noon'], /--time must be an ISO 8601/);
+    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00'], /--time must be an ISO 8601/);
+    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21'], /needs a time of day/);
+  });
+});
