@@ -12,7 +12,7 @@
  *   azimuthDeg: azimuth of f projected on the horizontal, clockwise from true north, [0, 360);
  *   tiltDeg:    elevation of f above the horizontal (open side raised is positive), [−90, 90];
  *   rollDeg:    rotation of the plate about f, positive raising the right-hand side as seen facing along f, (−180, 180].
- * Construction: f = (sin A cos t, cos A cos t, sin t); r₀ = (cos A, −sin A, 0); u₀ = f × r₀ … written out below;
+ * Construction: f = (sin A cos t, cos A cos t, sin t); r₀ = (cos A, −sin A, 0); u₀ = r₀ × f = (−sin A sin t, −cos A sin t, cos t);
  *   r = r₀ cos ρ + u₀ sin ρ, u = u₀ cos ρ − r₀ sin ρ. This is an intrinsic Z(−A)·X(t)·Y(ρ) rotation of ENU.
  * Source: elementary rotation algebra (e.g. Diebel, "Representing Attitude: Euler Angles, Unit Quaternions and
  *   Rotation Vectors", Stanford 2006, §2 and §5); the angle names follow the Glintmark issue #2 definitions.
