@@ -61,6 +61,7 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
   const rows = storedRows(doc);
   const incomingRevs = new Map<string, RevisionRecord[]>();
   for (const r of doc.tables.revisions) incomingRevs.set(`${r.table}:${r.recordId}`, [...(incomingRevs.get(`${r.table}:${r.recordId}`) ?? []), r]);
+  for (const list of incomingRevs.values()) list.sort((x, y) => x.rev - y.rev || x.atMs - y.atMs || x.id.localeCompare(y.id));
   const revsOf = (t: VersionedTable, id: string) => incomingRevs.get(`${t}:${id}`) ?? [];
 
   const report = Object.fromEntries(
