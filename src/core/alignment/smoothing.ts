@@ -86,7 +86,10 @@ export interface CapturedOrientation {
   azimuthSampleCount: number;
 }
 
-/** Average of a run of readings: circular for azimuth and roll, linear for tilt, each with its standard deviation. */
+/**
+ * Average of a run of readings: circular for azimuth and roll, linear for tilt, each with its standard deviation.
+ * Throws RangeError for an empty list or rolls that cancel (no mean roll); azimuths that cancel give null.
+ */
 export function captureAverage(samples: readonly OrientationSample[]): CapturedOrientation {
   if (samples.length === 0) throw new RangeError('samples must hold at least one reading, got an empty list');
   const az = samples.map((s) => s.azimuthDeg).filter((a): a is number => a !== null);
@@ -127,7 +130,7 @@ export interface SteadinessStatus {
   /** Time covered by the samples held, seconds. */
   spanS: number;
   sampleCount: number;
-  /** Standard deviations over the window (azimuth null when no sample had one). */
+  /** Standard deviations over the window, degrees (azimuth null when no sample had one; Infinity if directions cancel). */
   std: { azimuthDeg: number | null; tiltDeg: number; rollDeg: number };
 }
 
@@ -187,14 +190,22 @@ export class SteadinessTracker {
 
   status(): SteadinessStatus {
     if (this.count === 0) return { steady: false, spanS: 0, sampleCount: 0, std: { azimuthDeg: null, tiltDeg: 0, rollDeg: 0 } };
-    const c = captureAverage(this.samples());
-    const spanS = (this.at(this.count - 1)!.timeMs - this.at(0)!.timeMs) / 1000;
-    const azOk = c.azimuthStdDeg === null || c.azimuthStdDeg < this.maxStd.azimuthDeg;
+    // Standard deviations only: these never throw (cancelling directions give Infinity, i.e. not steady).
+    const held = this.samples();
+    const az = held.map((x) => x.azimuthDeg).filter((a): a is number => a !== null);
+    const std = {
+      azimuthDeg: az.length ? circularStdDeg(az) : null,
+      tiltDeg: linearStd(held.map((x) => x.tiltDeg)),
+      rollDeg: circularStdDeg(held.map((x) => x.rollDeg)),
+    };
+    const spanS = (held[held.length - 1].timeMs - held[0].timeMs) / 1000;
     const steady =
       this.count >= MIN_STEADY_SAMPLES &&
       spanS * 1000 >= this.windowMs &&
-      azOk && c.tiltStdDeg < this.maxStd.tiltDeg && c.rollStdDeg < this.maxStd.rollDeg;
-    return { steady, spanS, sampleCount: this.count, std: { azimuthDeg: c.azimuthStdDeg, tiltDeg: c.tiltStdDeg, rollDeg: c.rollStdDeg } };
+      (std.azimuthDeg === null || std.azimuthDeg < this.maxStd.azimuthDeg) &&
+      std.tiltDeg < this.maxStd.tiltDeg &&
+      std.rollDeg < this.maxStd.rollDeg;
+    return { steady, spanS, sampleCount: this.count, std };
   }
 
   reset(): void {

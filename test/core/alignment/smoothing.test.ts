@@ -170,6 +170,18 @@ describe('SteadinessTracker', () => {
     expect(t.status()).toMatchObject({ steady: false, sampleCount: 1, spanS: 0 });
   });
 
+  it('never throws on readings whose directions cancel: just not steady', () => {
+    const t = new SteadinessTracker({ windowS: 1 });
+    for (let ms = 0; ms <= 1500; ms += 50) t.push({ timeMs: ms, azimuthDeg: (ms / 50) % 2 ? 0 : 180, tiltDeg: 0, rollDeg: (ms / 50) % 2 ? 0 : 180 });
+    const st = t.status();
+    expect(st.steady).toBe(false);
+    expect(st.std.rollDeg).toBeGreaterThan(90);
+    // An exactly cancelling capture has no mean roll: captureAverage says so rather than inventing one.
+    expect(() => captureAverage([{ timeMs: 0, azimuthDeg: 1, tiltDeg: 0, rollDeg: 0 }, { timeMs: 1, azimuthDeg: 1, tiltDeg: 0, rollDeg: 180 }])).toThrow(
+      /no mean direction/,
+    );
+  });
+
   it('needs a few samples: two readings a window apart are not "steady"', () => {
     const t = new SteadinessTracker({ windowS: 1 });
     t.push({ timeMs: 0, azimuthDeg: 10, tiltDeg: 0, rollDeg: 0 });
