@@ -1,0 +1,106 @@
+/**
+ * Azimuth without the compass: tape offsets from a pin's shadow or from a reference bearing between two points,
+ * worded as steps for the crew. The maths is the core's (sunPosition, geodesicInverse, shadowLayout, tapeLayout).
+ */
+import { shadowLayout, tapeLayout, type ShadowLayout, type TapeLayout } from '../../../core/alignment/layout.ts';
+import { geodesicInverse } from '../../../core/geodesy/bearing.ts';
+import { sunAzimuthRateDegPerMin, sunPosition } from '../../../core/sun/sunPosition.ts';
+import { toDeg } from '../../../core/units.ts';
+import { requireInRange, requireLatDeg, requireLonDeg } from '../../../core/validate.ts';
+import { parseField } from '../../components/fields.tsx';
+import type { PositionInput } from './computeAlign.ts';
+
+/** A reference closer than this gets a warning, m; with a point error of POINT_ERROR_M, m (common practice, no source). */
+const SHORT_REFERENCE_M = 20;
+const POINT_ERROR_M = 0.1;
+
+const m = (x: number) => `${Math.abs(x).toFixed(2)} m`;
+
+/** Steps for a tape layout, facing along a reference line named `facing`. */
+export function layoutSteps(l: TapeLayout, facing: string): string[] {
+  const turn = l.turnDeg === 0 ? 'the target line is the reference line itself' : `the target line is ${Math.abs(l.turnDeg).toFixed(1)}° ${l.turnDeg > 0 ? 'clockwise' : 'anticlockwise'} of it`;
+  return [
+    `Stand at the pivot facing ${facing}; ${turn}.`,
+    `Run the tape ${m(l.alongM)} ${l.alongM < 0 ? 'BEHIND you (away from the way you face)' : 'along the line'}, then ${m(l.offsetM)} square to it, to the ${l.side.toUpperCase()}.`,
+    'Mark that point: the line from the pivot to the mark is the target azimuth. Lay the plate’s bisector along it.',
+  ];
+}
+
+export const baselineField = (text: string) => parseField('Baseline', text, (n, v) => requireInRange(n, v, { min: 1, max: 200, unit: 'm' }));
+
+export interface SunLayoutView {
+  sunAzimuthDeg: number;
+  sunElevationDeg: number;
+  rateDegPerMin: number;
+  layout: ShadowLayout;
+  computedAtMs: number;
+  steps: string[];
+}
+
+/** Shadow layout for the sun at `timeMs`; a plain message when it cannot be done. */
+export function sunLayoutView(pos: PositionInput | null, timeMs: number, targetAzimuthDeg: number, baselineText: string): { view: SunLayoutView | null; error: string | null } {
+  if (!pos) return { view: null, error: 'The sun’s direction needs the site position: take a GPS fix or type the coordinates.' };
+  const b = baselineField(baselineText);
+  if (b.value === undefined) return { view: null, error: b.error ?? null };
+  try {
+    const sun = sunPosition({ latDeg: pos.latDeg, lonDeg: pos.lonDeg, heightM: pos.heightEllM ?? 0, timeMs });
+    if (sun.elevationDeg <= 0) return { view: null, error: `The sun is below the horizon (${sun.elevationDeg.toFixed(1)}°): no shadow. Use a reference bearing.` };
+    const layout = shadowLayout(sun.azimuthDeg, targetAzimuthDeg, b.value);
+    const rate = sunAzimuthRateDegPerMin({ latDeg: pos.latDeg, lonDeg: pos.lonDeg, heightM: pos.heightEllM ?? 0, timeMs });
+    return {
+      view: {
+        sunAzimuthDeg: sun.azimuthDeg,
+        sunElevationDeg: sun.elevationDeg,
+        rateDegPerMin: rate,
+        layout,
+        computedAtMs: timeMs,
+        steps: [
+          'Plumb a thin pin at the pivot and mark the tip of its shadow now.',
+          ...layoutSteps(layout, 'along the shadow, from the pin toward the shadow tip'),
+        ],
+      },
+      error: null,
+    };
+  } catch (e) {
+    return { view: null, error: e instanceof Error ? e.message : String(e) };
+  }
+}
+
+export interface BearingForm {
+  fromLat: string;
+  fromLon: string;
+  toLat: string;
+  toLon: string;
+}
+
+export interface ReferenceLayoutView {
+  bearingDeg: number;
+  distanceM: number;
+  layout: TapeLayout;
+  steps: string[];
+}
+
+/** Reference line from the pivot (`from`) toward a landmark or second GNSS point (`to`), and its tape layout. */
+export function referenceLayoutView(f: BearingForm, targetAzimuthDeg: number, baselineText: string): { view: ReferenceLayoutView | null; errors: Partial<Record<keyof BearingForm | 'baseline' | 'points', string>> } {
+  const fromLat = parseField('Pivot latitude', f.fromLat, requireLatDeg);
+  const fromLon = parseField('Pivot longitude', f.fromLon, requireLonDeg);
+  const toLat = parseField('Reference latitude', f.toLat, requireLatDeg);
+  const toLon = parseField('Reference longitude', f.toLon, requireLonDeg);
+  const b = baselineField(baselineText);
+  const errors: Partial<Record<keyof BearingForm | 'baseline' | 'points', string>> = {
+    fromLat: fromLat.error, fromLon: fromLon.error, toLat: toLat.error, toLon: toLon.error, baseline: b.error,
+  };
+  if (fromLat.value === undefined || fromLon.value === undefined || toLat.value === undefined || toLon.value === undefined || b.value === undefined) return { view: null, errors };
+  try {
+    const g = geodesicInverse({ latDeg: fromLat.value, lonDeg: fromLon.value }, { latDeg: toLat.value, lonDeg: toLon.value });
+    const layout = tapeLayout(g.azimuthDeg, targetAzimuthDeg, b.value);
+    const steps = layoutSteps(layout, 'the reference point (sight along the line to it)');
+    if (g.distanceM < SHORT_REFERENCE_M) {
+      const turnDeg = toDeg(Math.atan2(POINT_ERROR_M, g.distanceM));
+      steps.unshift(`The reference point is only ${g.distanceM.toFixed(1)} m away: a ${POINT_ERROR_M} m error in either point turns the line by about ${turnDeg.toFixed(1)}°. A point farther away is better.`);
+    }
+    return { view: { bearingDeg: g.azimuthDeg, distanceM: g.distanceM, layout, steps }, errors };
+  } catch (e) {
+    return { view: null, errors: { ...errors, points: e instanceof Error ? e.message : String(e) } };
+  }
+}
