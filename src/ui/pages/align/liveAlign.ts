@@ -29,7 +29,8 @@ export interface LiveSnapshot {
 }
 
 export class LiveAlignment {
-  private readonly display = new SteadinessTracker({ windowS: DISPLAY_WINDOW_S, capacity: 64 });
+  // 128 samples over 1 s keeps every reading up to 64 Hz (the tracker drops readings closer than window/(capacity/2)).
+  private readonly display = new SteadinessTracker({ windowS: DISPLAY_WINDOW_S, capacity: 128 });
   private readonly capture = new SteadinessTracker({ windowS: CAPTURE_WINDOW_S });
   private lastTimeMs: number | null = null;
   private nearVertical: string | null = null;
