@@ -11,6 +11,8 @@ export interface GeometryInput {
   incidenceDeg: string;
   headingDeg: string;
   look: LookSide;
+  /** Exact azimuth site → satellite from a pass search (degrees true); dropped as soon as the crew edits the row. */
+  losAzimuthDeg?: number;
   /** Where it came from: typed, or a track of a satellite's passes. */
   label?: string;
   direction?: 'ascending' | 'descending';

@@ -38,6 +38,13 @@ describe('aimForPass', () => {
     expect(a.baseTiltDeg).toBeCloseTo(50 - 35.2643896828, 8);
   });
 
+  it('an exact line-of-sight azimuth from an orbit overrides heading ∓ 90°', () => {
+    const a = aimForPass({ incidenceDeg: 40, headingDeg: 190, look: 'right', losAzimuthDeg: 100.25 });
+    expect(a.reflectorAzimuthDeg).toBeCloseTo(100.25, 12);
+    expect(azElFromEnu(a.losEnu).azimuthDeg).toBeCloseTo(100.25, 9);
+    expect(() => aimForPass({ incidenceDeg: 40, headingDeg: 190, look: 'right', losAzimuthDeg: Number.NaN })).toThrow(/losAzimuthDeg must be a finite number/);
+  });
+
   it('LOS is a unit vector whose az/el match the aim (property)', () => {
     fc.assert(
       fc.property(

@@ -30,7 +30,14 @@ export function PlanPage() {
   );
 
   const setGeometry = (i: number, patch: Partial<GeometryInput>) =>
-    workflow.set((s) => ({ geometries: s.geometries.map((g, j) => (j === i ? { ...g, ...patch, source: patch.source ?? (g.source === 'typed' ? 'typed' : g.source) } : g)) }));
+    workflow.set((s) => ({
+      geometries: s.geometries.map((g, j) => {
+        if (j !== i) return g;
+        // A typed change makes the row a typed geometry: the orbit's exact line of sight no longer applies.
+        const typed = patch.incidenceDeg !== undefined || patch.headingDeg !== undefined || patch.look !== undefined;
+        return typed ? { ...g, ...patch, source: 'typed', losAzimuthDeg: undefined, label: undefined } : { ...g, ...patch };
+      }),
+    }));
   const addGeometry = () => workflow.set((s) => ({ geometries: [...s.geometries, { incidenceDeg: '', headingDeg: '', look: 'right', source: 'typed' }] }));
   const removeGeometry = (i: number) => workflow.set((s) => ({ geometries: s.geometries.filter((_, j) => j !== i) }));
 
@@ -83,8 +90,8 @@ export function PlanPage() {
                 <div key={i} className="gm-card" style={{ marginBottom: 8 }} data-testid={`geometry-${i}`}>
                   {g.label ? <p className="gm-note">{g.label}</p> : null}
                   <div className="gm-row">
-                    <NumberField label="Incidence" unit="°" value={g.incidenceDeg} onChange={(v) => setGeometry(i, { incidenceDeg: v, source: 'typed' })} error={r.errors.incidenceDeg} testId={`incidence-${i}`} />
-                    <NumberField label="Heading" unit="° true" value={g.headingDeg} onChange={(v) => setGeometry(i, { headingDeg: v, source: 'typed' })} error={r.errors.headingDeg} testId={`heading-${i}`} />
+                    <NumberField label="Incidence" unit="°" value={g.incidenceDeg} onChange={(v) => setGeometry(i, { incidenceDeg: v })} error={r.errors.incidenceDeg} testId={`incidence-${i}`} />
+                    <NumberField label="Heading" unit="° true" value={g.headingDeg} onChange={(v) => setGeometry(i, { headingDeg: v })} error={r.errors.headingDeg} testId={`heading-${i}`} />
                     <Segmented label="Look side" value={g.look} options={[{ value: 'right', label: 'Right' }, { value: 'left', label: 'Left' }]} onChange={(v) => setGeometry(i, { look: v })} testId={`look-${i}`} />
                   </div>
                   {r.lossDb !== null ? (

@@ -66,7 +66,7 @@ export function computePlan(f: PlanForm): PlanResult {
     const ok = inc.value !== undefined && hdg.value !== undefined;
     return {
       errors: { incidenceDeg: inc.error, headingDeg: hdg.error },
-      geometry: ok ? { incidenceDeg: inc.value!, headingDeg: hdg.value!, look: g.look } : null,
+      geometry: ok ? { incidenceDeg: inc.value!, headingDeg: hdg.value!, look: g.look, ...(g.losAzimuthDeg !== undefined ? { losAzimuthDeg: g.losAzimuthDeg } : {}) } : null,
       lossDb: null,
       offBoresightDeg: null,
       elevationDeg: null,
