@@ -5,6 +5,7 @@ import { exportSitesGeoJson } from '../../../src/data/exchange/geojson.ts';
 import { commitSiteImport, previewSiteImport } from '../../../src/data/exchange/siteImport.ts';
 import { installationRepo } from '../../../src/data/repo/entities.ts';
 import { siteRepo } from '../../../src/data/repo/sites.ts';
+import type { SiteRecord } from '../../../src/data/types.ts';
 import { BY, T0_MS, installationFields, seedSample, siteFields, useTestDb } from '../helpers.ts';
 
 /**
@@ -75,7 +76,7 @@ describe('GeoJSON export of sites', () => {
       const preview = await previewSiteImport(other, text, 'geojson');
       expect(preview.rejected).toEqual([]);
       await commitSiteImport(other, preview, BY);
-      const strip = ({ code, name, latDeg, lonDeg, heightEllM, positionAccuracyM, referenceFrame, frameEpoch, notes }: Record<string, unknown>) =>
+      const strip = ({ code, name, latDeg, lonDeg, heightEllM, positionAccuracyM, referenceFrame, frameEpoch, notes }: SiteRecord) =>
         ({ code, name, latDeg, lonDeg, heightEllM, positionAccuracyM, referenceFrame, frameEpoch, notes });
       expect((await siteRepo.list(other)).map(strip)).toEqual((await siteRepo.list(db())).map(strip));
       expect((await siteRepo.list(other)).every((s) => s.positionSource === 'imported')).toBe(true);

@@ -5,6 +5,7 @@ import { DuplicateCodeError } from '../../../src/data/errors.ts';
 import { commitSiteImport, previewSiteImport } from '../../../src/data/exchange/siteImport.ts';
 import { exportSitesCsv } from '../../../src/data/exchange/tablesCsv.ts';
 import { siteRepo } from '../../../src/data/repo/sites.ts';
+import type { SiteRecord } from '../../../src/data/types.ts';
 import { BY, dumpDb, siteFields, useTestDb } from '../helpers.ts';
 
 describe('site import from CSV', () => {
@@ -89,7 +90,7 @@ describe('site import from CSV', () => {
       const p = await previewSiteImport(other, text, 'csv');
       expect(p.rejected).toEqual([]);
       await commitSiteImport(other, p, BY);
-      const strip = ({ id: _i, rev: _r, createdAtMs: _c, updatedAtMs: _u, positionSource: _p, ...rest }: Record<string, unknown>) => rest;
+      const strip = ({ id: _i, rev: _r, createdAtMs: _c, updatedAtMs: _u, positionSource: _p, ...rest }: SiteRecord) => rest;
       expect((await siteRepo.list(other)).map(strip)).toEqual((await siteRepo.list(db())).map(strip));
     } finally {
       await other.delete();
