@@ -27,11 +27,12 @@ export interface OrientationEnv {
   clearInterval: (h: unknown) => void;
 }
 
-/** No reading at all within this long after start (or after permission) → 'no-sensor', ms. */
+/** No reading at all within this long after start (or after permission) → 'no-sensor', ms. Once readings have come,
+ * silence is not an error: browsers send events only when the angles change. */
 export const NO_SENSOR_AFTER_MS = 2000;
-/** Relative readings are not shown while an absolute one arrived within this long, ms. */
+/** A relative reading within this long after an absolute one is Chrome's twin event, not a lost compass, ms. */
 export const ABSOLUTE_HOLD_MS = 1000;
-/** Relative readings must run this long without any absolute one before the compass is called unavailable, ms. */
+/** Relative readings must come this long without an absolute one before the compass is called unavailable, ms. */
 export const RELATIVE_ONLY_AFTER_MS = 1000;
 /** How often the status is re-evaluated when no event arrives, ms. */
 const TICK_MS = 250;
@@ -93,6 +94,8 @@ export function createOrientationSensor(env: OrientationEnv): OrientationSensor 
       let lastAbsoluteMs: number | null = null;
       let lastAbsoluteSource: OrientationSource = 'deviceorientationabsolute';
       let lastRelativeMs: number | null = null;
+      /** Start of the current unbroken run of relative readings since the latest absolute one (null right after one). */
+      let relSinceAbsMs: number | null = null;
       let status: OrientationStatus | null = null;
 
       const setStatus = (s: OrientationStatus) => {
@@ -100,16 +103,22 @@ export function createOrientationSensor(env: OrientationEnv): OrientationSensor 
         status = s;
         onStatus(s);
       };
+      // Browsers send an event only when the angles change (Chromium: by more than 0.1°), so silence after the
+      // first readings means "unchanged", not "gone": the status follows the kind of the latest readings.
+      const compassFlowing = () =>
+        lastAbsoluteMs !== null && (relSinceAbsMs === null || lastRelativeMs === null || lastRelativeMs - relSinceAbsMs <= ABSOLUTE_HOLD_MS);
       const evaluate = () => {
         const now = env.now();
-        if (lastAbsoluteMs !== null && now - lastAbsoluteMs <= NO_SENSOR_AFTER_MS) {
+        if (compassFlowing()) {
           const src = lastAbsoluteSource === 'ios-compass' ? 'ios-compass' : 'deviceorientationabsolute';
           return setStatus({ kind: 'absolute', source: src, message: ORIENTATION_MESSAGES.absolute[src] });
         }
-        if (lastRelativeMs !== null && now - lastRelativeMs <= NO_SENSOR_AFTER_MS) {
-          if (firstRelativeMs !== null && now - Math.max(firstRelativeMs, startMs) >= RELATIVE_ONLY_AFTER_MS) {
+        if (lastRelativeMs !== null) {
+          const since = Math.max(lastAbsoluteMs !== null && relSinceAbsMs !== null ? relSinceAbsMs + ABSOLUTE_HOLD_MS : firstRelativeMs ?? now, startMs);
+          if (now - since >= RELATIVE_ONLY_AFTER_MS) {
             return setStatus({ kind: 'relative-only', source: 'relative', message: ORIENTATION_MESSAGES['relative-only'] });
           }
+          if (lastAbsoluteMs !== null) return; // the compass was working: keep saying so until it is surely gone
           return setStatus({ kind: 'starting', message: ORIENTATION_MESSAGES.starting });
         }
         if (permission === 'denied') return setStatus({ kind: 'permission-denied', message: ORIENTATION_MESSAGES['permission-denied'] });
@@ -127,12 +136,15 @@ export function createOrientationSensor(env: OrientationEnv): OrientationSensor 
         if (r.absolute) {
           lastAbsoluteMs = now;
           lastAbsoluteSource = r.source;
+          relSinceAbsMs = null;
           onReading(r);
         } else {
+          // A new run of relative readings starts after a pause (events come only on change).
+          if (relSinceAbsMs === null || (lastRelativeMs !== null && now - lastRelativeMs > ABSOLUTE_HOLD_MS)) relSinceAbsMs = now;
           lastRelativeMs = now;
           firstRelativeMs ??= now;
-          // Chrome sends both events: keep the compass-referenced one while it flows.
-          if (lastAbsoluteMs === null || now - lastAbsoluteMs > ABSOLUTE_HOLD_MS) onReading(r);
+          // Chrome sends both events: keep the compass-referenced one unless relative ones come on without it.
+          if (lastAbsoluteMs === null || now - relSinceAbsMs > ABSOLUTE_HOLD_MS) onReading(r);
         }
         evaluate();
       };

@@ -170,3 +170,31 @@ describe('iOS permission', () => {
     expect(await sensor.requestPermission()).toBe('granted');
   });
 });
+
+describe('event-on-change sources (Chromium sends an event only when the angles change)', () => {
+  it('keeps the compass status through long silences, and a later twin relative event does not replace it', () => {
+    const s = stubEnv();
+    const c = collect(s.env);
+    s.fire('deviceorientationabsolute', { alpha: 30, beta: 10, gamma: 0, absolute: true });
+    s.fire('deviceorientation', { alpha: 200, beta: 10, gamma: 0, absolute: false });
+    s.advance(60_000);
+    // The phone moves a minute later: the relative twin may come first.
+    s.fire('deviceorientation', { alpha: 201, beta: 11, gamma: 0, absolute: false });
+    s.fire('deviceorientationabsolute', { alpha: 31, beta: 11, gamma: 0, absolute: true });
+    s.advance(60_000);
+    expect(c.kinds()).toEqual(['starting', 'absolute']);
+    expect(c.readings.map((r) => r.source)).toEqual(['deviceorientationabsolute', 'deviceorientationabsolute']);
+    c.stop();
+  });
+
+  it('a single relative reading followed by silence is "compass unavailable", not "no sensor"', () => {
+    const s = stubEnv();
+    const c = collect(s.env);
+    s.fire('deviceorientationabsolute', { alpha: null, beta: null, gamma: null, absolute: true });
+    s.fire('deviceorientation', { alpha: 30, beta: 10, gamma: -5, absolute: false });
+    s.advance(NO_SENSOR_AFTER_MS * 5);
+    expect(c.kinds()).toEqual(['starting', 'relative-only']);
+    expect(c.readings).toHaveLength(1);
+    c.stop();
+  });
+});

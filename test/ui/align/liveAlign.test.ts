@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { deviceAnglesFromPlateOrientation } from '../../../src/core/alignment/deviceOrientation.ts';
 import { DEFAULT_STEADINESS } from '../../../src/core/alignment/smoothing.ts';
-import { LiveAlignment, STALE_AFTER_MS } from '../../../src/ui/pages/align/liveAlign.ts';
+import { HOLD_STEP_MS, LiveAlignment } from '../../../src/ui/pages/align/liveAlign.ts';
 import type { OrientationReading } from '../../../src/sensors/index.ts';
 
 const TOL_DEG = 1e-6;
@@ -67,11 +67,15 @@ describe('LiveAlignment', () => {
     expect(s.measured).toBeNull();
   });
 
-  it('drops the values shown when readings stop', () => {
+  it('holds the last reading through silence (events come only on change), so a still phone becomes steady', () => {
     const live = new LiveAlignment();
     live.push(reading({ azimuthDeg: 10, tiltDeg: 10, rollDeg: 0 }, 0));
-    expect(live.snapshot(STALE_AFTER_MS).measured).not.toBeNull();
-    expect(live.snapshot(STALE_AFTER_MS + 1).measured).toBeNull();
+    let s = live.snapshot(0);
+    for (let t = 0; t <= 3500; t += HOLD_STEP_MS) s = live.snapshot(t);
+    expect(s.measured!.tiltDeg).toBeCloseTo(10, 9);
+    expect(s.steadiness.steady).toBe(true);
+    expect(s.lastReadingAgeS).toBeCloseTo(3.5, 9);
+    expect(s.readingCount).toBe(1);
   });
 
   it('becomes steady after 3 s of still readings, and not with a shaking phone', () => {

@@ -81,7 +81,7 @@ export function AlignPage() {
               Allow motion sensors
             </button>
           ) : null}
-          <LiveCards view={view} steadiness={snap.steadiness} />
+          <LiveCards view={view} steadiness={snap.steadiness} lastReadingAgeS={snap.lastReadingAgeS} />
           <p className={decl.ok ? 'gm-note' : 'gm-warn'} data-testid="declination">
             {decl.ok ? decl.text : decl.message}
           </p>

@@ -50,7 +50,10 @@ function Sub(props: { axis: 'azimuth' | 'tilt' | 'roll'; g: AxisGuidance<number 
   );
 }
 
-export function LiveCards(props: { view: AlignView; steadiness: SteadinessStatus }) {
+/** After this long without a new event, say that the value shown is held, s. */
+const QUIET_NOTE_AFTER_S = 10;
+
+export function LiveCards(props: { view: AlignView; steadiness: SteadinessStatus; lastReadingAgeS: number | null }) {
   const { view } = props;
   const m = view.measured;
   const g = view.guidance;
@@ -71,6 +74,9 @@ export function LiveCards(props: { view: AlignView; steadiness: SteadinessStatus
       <p className={props.steadiness.steady ? 'gm-okt' : 'gm-note'} data-testid="steadiness">
         {props.steadiness.steady ? '● Steady' : '○ Not steady yet'} — spread over {fmtNum(props.steadiness.spanS, 1)} s: tilt ±{fmtNum(std.tiltDeg, 2)}°, roll ±{fmtNum(std.rollDeg, 2)}°
         {std.azimuthDeg !== null ? `, azimuth ±${fmtNum(std.azimuthDeg, 2)}°` : ''}. Values shown are a 1 s running mean.
+        {props.lastReadingAgeS !== null && props.lastReadingAgeS > QUIET_NOTE_AFTER_S
+          ? ` No change from the sensor for ${fmtNum(props.lastReadingAgeS, 0)} s: the last reading is held (the phone reports only changes).`
+          : ''}
       </p>
     </>
   );

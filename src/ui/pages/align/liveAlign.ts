@@ -12,8 +12,12 @@ import type { OrientationReading, OrientationSource } from '../../../sensors/ind
 export const DISPLAY_WINDOW_S = 1;
 /** Window for steadiness and capture, s. */
 export const CAPTURE_WINDOW_S = DEFAULT_STEADINESS.windowS;
-/** No reading for this long → the values shown are dropped, ms. */
-export const STALE_AFTER_MS = 2000;
+/**
+ * Browsers send orientation events only when the angles change (Chromium: by more than 0.1°), so a phone lying
+ * still may send nothing for minutes. Silence therefore means "unchanged": at each render tick the last reading is
+ * held (re-entered with the tick's time) at most this often, ms, so that steadiness and capture still see 3 s of data.
+ */
+export const HOLD_STEP_MS = 100;
 
 export interface LiveSnapshot {
   /** Smoothed plate orientation (azimuth MAGNETIC, null without a compass); tilt not yet bias-corrected. */
@@ -26,13 +30,16 @@ export interface LiveSnapshot {
   steadiness: SteadinessStatus;
   /** Readings that arrived in total (for a "live" indicator). */
   readingCount: number;
+  /** Seconds since the sensor last sent a reading (the value shown is held meanwhile); null before the first. */
+  lastReadingAgeS: number | null;
 }
 
 export class LiveAlignment {
   // 128 samples over 1 s keeps every reading up to 64 Hz (the tracker drops readings closer than window/(capacity/2)).
   private readonly display = new SteadinessTracker({ windowS: DISPLAY_WINDOW_S, capacity: 128 });
   private readonly capture = new SteadinessTracker({ windowS: CAPTURE_WINDOW_S });
-  private lastTimeMs: number | null = null;
+  private last: OrientationReading | null = null;
+  private lastSampleMs = -Infinity;
   private nearVertical: string | null = null;
   private absolute = false;
   private source: OrientationSource | null = null;
@@ -41,7 +48,17 @@ export class LiveAlignment {
 
   push(r: OrientationReading): void {
     this.count++;
-    this.lastTimeMs = r.timeMs;
+    this.last = r;
+    this.ingest(r);
+  }
+
+  /** Hold the last reading up to `nowMs` (see HOLD_STEP_MS). Called by `snapshot`. */
+  tick(nowMs: number): void {
+    if (this.last && nowMs - this.lastSampleMs >= HOLD_STEP_MS && nowMs >= this.last.timeMs) this.ingest({ ...this.last, timeMs: nowMs });
+  }
+
+  private ingest(r: OrientationReading): void {
+    this.lastSampleMs = r.timeMs;
     // A switch between compass and relative readings changes what alpha means: start the windows again.
     if (r.absolute !== this.absolute) this.reset();
     this.absolute = r.absolute;
@@ -65,8 +82,8 @@ export class LiveAlignment {
   }
 
   snapshot(nowMs: number): LiveSnapshot {
-    const stale = this.lastTimeMs === null || nowMs - this.lastTimeMs > STALE_AFTER_MS;
-    const samples = stale ? [] : this.display.samples();
+    this.tick(nowMs);
+    const samples = this.display.samples();
     let measured: LiveSnapshot['measured'] = null;
     if (samples.length) {
       const c = captureAverage(samples);
@@ -74,12 +91,13 @@ export class LiveAlignment {
     }
     return {
       measured,
-      nearVertical: stale ? null : this.nearVertical,
-      absolute: !stale && this.absolute,
-      source: stale ? null : this.source,
-      compassAccuracyDeg: stale ? null : this.compassAccuracyDeg,
-      steadiness: stale ? { steady: false, spanS: 0, sampleCount: 0, std: { azimuthDeg: null, tiltDeg: 0, rollDeg: 0 } } : this.capture.status(),
+      nearVertical: this.nearVertical,
+      absolute: this.absolute,
+      source: this.source,
+      compassAccuracyDeg: this.compassAccuracyDeg,
+      steadiness: this.capture.status(),
       readingCount: this.count,
+      lastReadingAgeS: this.last ? (nowMs - this.last.timeMs) / 1000 : null,
     };
   }
 
