@@ -19,6 +19,7 @@ import {
   planHeadingDeg,
   trackLabel,
   trackLossesDb,
+  trackNextAfterMs,
   utcMinuteText,
   type PassQuery,
 } from '../../../src/ui/pages/passes/computePasses.ts';
@@ -195,6 +196,12 @@ describe('labels, ages and the countdown', () => {
         expect(Number(d ?? 0) * 86_400 + Number(h) * 3600 + Number(mi) * 60 + Number(s)).toBe(Math.ceil(ms / 1000));
       }),
     );
+  });
+  it('gives a track’s next pass after now, or null once its passes are over', () => {
+    const t = { passTimesUtc: ['2026-12-01T17:10:28.000Z', '2026-12-13T17:10:27.000Z'] };
+    expect(trackNextAfterMs(t, Date.UTC(2026, 11, 2))).toBe(Date.UTC(2026, 11, 13, 17, 10, 27));
+    expect(trackNextAfterMs(t, Date.UTC(2026, 11, 1))).toBe(Date.UTC(2026, 11, 1, 17, 10, 28));
+    expect(trackNextAfterMs(t, Date.UTC(2026, 11, 14))).toBeNull();
   });
   it('picks the next pass strictly after now', () => {
     const ps = [{ timeMs: 10 }, { timeMs: 20 }, { timeMs: 30 }];

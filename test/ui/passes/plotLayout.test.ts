@@ -4,7 +4,7 @@ import { losFromAzEl } from '../../../src/core/geometry/pointing.ts';
 import { beamwidth3dB } from '../../../src/core/reflector/beamwidth.ts';
 import { TRIHEDRAL_BORESIGHT_ELEVATION_DEG, toDeg, wrapSignedDeg } from '../../../src/core/units.ts';
 import { MS_PER_DAY } from '../../../src/ui/pages/passes/computePasses.ts';
-import { beamOutline, boresightDirection, skyPoint, timelineLayout, trackDirection, trianglePoints, type AzEl } from '../../../src/ui/pages/passes/plotLayout.ts';
+import { beamOutline, boresightDirection, skyPoint, TIMELINE_LABEL_PX, timelineLayout, trackDirection, trianglePoints, type AzEl } from '../../../src/ui/pages/passes/plotLayout.ts';
 
 const TOL_PX = 1e-9;
 const TOL_DEG = 1e-6;
@@ -103,12 +103,14 @@ describe('timeline', () => {
   it('leaves out passes outside the window', () => {
     expect(timelineLayout([pass(-0.1, 'ascending'), pass(24, 'ascending')], start, 24).marks).toEqual([]);
   });
-  it('ticks each UTC midnight and labels at most 8 of them', () => {
+  it('ticks each UTC midnight and spaces the labels so they never collide', () => {
     fc.assert(
       fc.property(fc.integer({ min: 1, max: 366 }), (days) => {
         const l = timelineLayout([], start, days);
         expect(l.ticks).toHaveLength(days);
-        expect(l.ticks.filter((t) => t.label).length).toBeLessThanOrEqual(8);
+        const xs = l.ticks.filter((t) => t.label).map((t) => t.x);
+        expect(xs.length).toBeGreaterThan(0);
+        for (let i = 1; i < xs.length; i++) expect(xs[i] - xs[i - 1]).toBeGreaterThanOrEqual(TIMELINE_LABEL_PX - 1e-9);
         for (const t of l.ticks) {
           expect(t.x).toBeGreaterThanOrEqual(l.plotLeft);
           expect(t.x).toBeLessThanOrEqual(l.plotRight);
@@ -117,6 +119,7 @@ describe('timeline', () => {
       { numRuns: 40 },
     );
     expect(timelineLayout([], start, 3).ticks.map((t) => t.label)).toEqual(['2 Dec', '3 Dec', '4 Dec']);
+    expect(timelineLayout([], start, 24).ticks.filter((t) => t.label).map((t) => t.label)).toEqual(['2 Dec', '7 Dec', '12 Dec', '17 Dec', '22 Dec']);
   });
   it('draws triangles pointing the right way', () => {
     expect(trianglePoints(10, 10, 5, 'up')).toBe('10,5 5,15 15,15');

@@ -25,16 +25,18 @@ export function CircularPanel(props: { siteLatDeg: number | null; onUse: (g: Geo
         <NumberField label="Orbit altitude" unit="km" value={form.altitudeKm} onChange={(v) => set({ altitudeKm: v })} error={r.errors.altitudeKm} testId="circ-altitude" />
         <NumberField label="Inclination" unit="°" value={form.inclinationDeg} onChange={(v) => set({ inclinationDeg: v })} error={r.errors.inclinationDeg} testId="circ-inclination" />
         <NumberField label="Site latitude" unit="° N" value={latDeg} onChange={setLatText} error={r.errors.latDeg} testId="circ-lat" />
-        <Segmented
-          label="Angle known"
-          value={form.angleKind}
-          options={[
-            { value: 'incidence', label: 'Incidence' },
-            { value: 'look', label: 'Look angle' },
-          ]}
-          onChange={(v) => set({ angleKind: v })}
-          testId="circ-angle-kind"
-        />
+        <div className="gm-wide">
+          <Segmented
+            label="Angle known"
+            value={form.angleKind}
+            options={[
+              { value: 'incidence', label: 'Incidence' },
+              { value: 'look', label: 'Look angle' },
+            ]}
+            onChange={(v) => set({ angleKind: v })}
+            testId="circ-angle-kind"
+          />
+        </div>
         <NumberField label={form.angleKind === 'incidence' ? 'Incidence at the site' : 'Look angle at the satellite'} unit="°" value={form.angleDeg} onChange={(v) => set({ angleDeg: v })} error={r.errors.angleDeg} testId="circ-angle" />
         <Segmented label="Look side" value={form.look} options={[{ value: 'right', label: 'Right' }, { value: 'left', label: 'Left' }]} onChange={(v) => set({ look: v })} testId="circ-look" />
       </div>
@@ -67,7 +69,7 @@ export function CircularPanel(props: { siteLatDeg: number | null; onUse: (g: Geo
             </tbody>
           </table>
           <p className="gm-note">
-            Period {fmtNum(r.geometry.periodMin, 2)} min, slant range ≈ {fmtNum(r.geometry.ascending.slantRangeM / 1000, 0)} km. {r.geometry.note}.
+            Period {fmtNum(r.geometry.periodMin, 2)} min, slant range ≈ {fmtNum(r.geometry.ascending.slantRangeM / 1000, 0)} km. Model: {r.geometry.note}.
           </p>
           <div className="gm-passes-buttons">
             {DIRECTIONS.map((d) => (

@@ -1,7 +1,7 @@
 /** Passes across the planning window: days across, ascending ▲ and descending ▼ on their own labelled rows. */
 import { fmtNum } from '../../format.ts';
 import { formatUtc } from './computePasses.ts';
-import { timelineLayout, trianglePoints, type TimelineInput } from './plotLayout.ts';
+import { TIMELINE_AXIS_Y, timelineLayout, trianglePoints, type TimelineInput } from './plotLayout.ts';
 
 const MARK_PX = 7;
 
@@ -19,6 +19,7 @@ export function PassTimeline(props: { passes: readonly TimelineInput[]; startMs:
         aria-label={`Timeline of ${l.marks.length} passes over ${fmtNum(props.days, 0)} days: ${asc} ascending, ${desc} descending`}
         data-testid="pass-timeline"
       >
+        <line x1={l.plotLeft} x2={l.plotRight} y1={TIMELINE_AXIS_Y} y2={TIMELINE_AXIS_Y} stroke="currentColor" strokeWidth="1" />
         {l.rows.map((r) => (
           <g key={r.direction}>
             <line x1={l.plotLeft} x2={l.plotRight} y1={r.y} y2={r.y} stroke="currentColor" strokeWidth="1" />
@@ -29,9 +30,9 @@ export function PassTimeline(props: { passes: readonly TimelineInput[]; startMs:
         ))}
         {l.ticks.map((t, i) => (
           <g key={i}>
-            <line x1={t.x} x2={t.x} y1={88} y2={t.label ? 96 : 92} stroke="currentColor" strokeWidth="1" />
+            <line x1={t.x} x2={t.x} y1={TIMELINE_AXIS_Y} y2={TIMELINE_AXIS_Y + (t.label ? 8 : 4)} stroke="currentColor" strokeWidth="1" />
             {t.label ? (
-              <text x={t.x} y={110} fontSize="11" textAnchor="middle" fill="currentColor">
+              <text x={t.x} y={TIMELINE_AXIS_Y + 21} fontSize="11" textAnchor="middle" fill="currentColor">
                 {t.label}
               </text>
             ) : null}
@@ -39,7 +40,7 @@ export function PassTimeline(props: { passes: readonly TimelineInput[]; startMs:
         ))}
         {nowX >= l.plotLeft && nowX <= l.plotRight ? (
           <g>
-            <line x1={nowX} x2={nowX} y1={10} y2={88} stroke="currentColor" strokeWidth="2" strokeDasharray="3 2" />
+            <line x1={nowX} x2={nowX} y1={10} y2={TIMELINE_AXIS_Y} stroke="currentColor" strokeWidth="2" strokeDasharray="3 2" />
             <text x={nowX} y={9} fontSize="10" textAnchor="middle" fill="currentColor">
               now
             </text>

@@ -120,7 +120,7 @@ export function PassesPage() {
           <section className="gm-section" aria-labelledby="window-h">
             <h2 id="window-h">Window</h2>
             <div className="gm-row">
-              <div>
+              <div className="gm-wide gm-start-row">
                 <NumberField label="Start" unit="UTC" value={form.startUtc} onChange={(v) => setForm({ ...form, startUtc: v })} error={win.errors.startUtc} testId="window-start" hint="e.g. 2026-12-01T06:00Z" />
                 <button type="button" className="gm-btn" onClick={() => setForm({ ...form, startUtc: utcMinuteText(Date.now()) })} data-testid="window-now">
                   Now
@@ -153,7 +153,7 @@ export function PassesPage() {
 
           {computed ? (
             <section className="gm-section" aria-labelledby="tracks-h" aria-busy={computing}>
-              <h2 id="tracks-h">Tracks</h2>
+              <h2 id="tracks-h" data-testid="tracks-h">Tracks</h2>
               {computed.outcome.errors.map((e, i) => (
                 <p key={`e${i}`} className="gm-error" role="alert" data-testid={`passes-error-${i}`}>
                   {e}
@@ -173,11 +173,11 @@ export function PassesPage() {
                   </button>
                 </p>
               ) : null}
-              <TrackList tracks={tracks} lossesDb={losses} onAim={aim} onAdd={add} />
+              <TrackList tracks={tracks} lossesDb={losses} nowMs={nowMs} onAim={aim} onAdd={add} />
               <h2>Timeline</h2>
               <PassTimeline passes={computed.outcome.passes} startMs={computed.startMs} days={computed.days} nowMs={nowMs} />
               <h2>Sky plot</h2>
-              <SkyPlot tracks={tracks} target={wf.target} shape={wf.shape} />
+              <SkyPlot tracks={tracks} lossesDb={losses} target={wf.target} shape={wf.shape} />
             </section>
           ) : null}
 

@@ -55,6 +55,7 @@ export function SitePanel(props: { site: SiteInput | null }) {
 
   const useTyped = () => {
     if (!parsed.site) return;
+    setGpsError(null);
     setQuality(null);
     setHeightNote(null);
     workflow.set({ site: { ...parsed.site, source: 'typed' } });

@@ -6,13 +6,15 @@ import { useId } from 'react';
 import type { ReflectorOrientation } from '../../../core/geometry/orientation.ts';
 import type { TrihedralShapeName } from '../../../core/radar/shapes.ts';
 import { beamwidth3dB } from '../../../core/reflector/beamwidth.ts';
+import { toRad } from '../../../core/units.ts';
 import { fmtNum } from '../../format.ts';
 import type { DisplayTrack } from './computePasses.ts';
 import { beamOutline, boresightDirection, skyPoint, trackDirection, trianglePoints } from './plotLayout.ts';
 
 const SIZE = 320;
 const FRAME = { cx: SIZE / 2, cy: SIZE / 2, radiusPx: 130 };
-const MARK_PX = 7;
+const MARK_PX = 6;
+const LABEL_OFFSET_PX = 10;
 const CARDINALS = [
   { label: 'N', az: 0 },
   { label: 'E', az: 90 },
@@ -20,7 +22,7 @@ const CARDINALS = [
   { label: 'W', az: 270 },
 ];
 
-export function SkyPlot(props: { tracks: readonly DisplayTrack[]; target: ReflectorOrientation | null; shape: TrihedralShapeName }) {
+export function SkyPlot(props: { tracks: readonly DisplayTrack[]; lossesDb: readonly (number | null)[]; target: ReflectorOrientation | null; shape: TrihedralShapeName }) {
   const clipId = `sky-clip-${useId().replace(/[^A-Za-z0-9_-]/g, '')}`;
   let beam: { points: string; bore: { x: number; y: number }; boreText: string } | null = null;
   if (props.target) {
@@ -68,10 +70,15 @@ export function SkyPlot(props: { tracks: readonly DisplayTrack[]; target: Reflec
         {props.tracks.map((t) => {
           const p = skyPoint(trackDirection(t), FRAME);
           const shape = t.direction === 'ascending' ? 'up' : 'down';
+          // Tracks of one direction line up along a radius: put labels across it, alternating sides.
+          const a = toRad(t.reflectorAzimuthDeg);
+          const side = t.index % 2 === 0 ? 1 : -1;
+          const lx = p.x + side * LABEL_OFFSET_PX * Math.cos(a);
+          const ly = p.y + side * LABEL_OFFSET_PX * Math.sin(a);
           return (
             <g key={t.index} data-testid={`sky-track-${t.index}`}>
               <polygon points={trianglePoints(p.x, p.y, MARK_PX, shape)} fill={shape === 'up' ? 'currentColor' : 'var(--gm-bg, #fff)'} stroke="currentColor" strokeWidth="2" />
-              <text x={p.x + MARK_PX + 2} y={p.y + 4} fontSize="12" fontWeight="700" fill="currentColor">
+              <text x={lx} y={ly + 4} fontSize="12" fontWeight="700" textAnchor={lx >= p.x ? 'start' : 'end'} fill="currentColor">
                 T{t.index + 1}
               </text>
             </g>
@@ -84,6 +91,31 @@ export function SkyPlot(props: { tracks: readonly DisplayTrack[]; target: Reflec
           ? `Dashed outline: the reflector’s −3 dB beam at the current aim (APPROXIMATE: an ellipse through the two measured cuts), + its boresight (${beam.boreText}).`
           : 'No reflector aim yet: aim on the Plan screen to see the beam here.'}
       </figcaption>
+      <table className="gm-table gm-sky-table" data-testid="sky-table">
+        <thead>
+          <tr>
+            <th scope="col">Track</th>
+            <th scope="col">Azimuth</th>
+            <th scope="col">Elevation</th>
+            <th scope="col">Loss at aim</th>
+          </tr>
+        </thead>
+        <tbody>
+          {props.tracks.map((t, i) => {
+            const loss = props.lossesDb[i];
+            return (
+              <tr key={t.index}>
+                <th scope="row">
+                  T{t.index + 1} {t.direction === 'ascending' ? '▲ asc' : '▼ desc'}
+                </th>
+                <td>{fmtNum(t.reflectorAzimuthDeg, 1)}°</td>
+                <td>{fmtNum(90 - t.incidenceDeg, 1)}°</td>
+                <td data-testid={`sky-loss-${t.index}`}>{loss === null || loss === undefined ? '—' : Number.isFinite(loss) ? `${fmtNum(loss, 1)} dB` : 'no return'}</td>
+              </tr>
+            );
+          })}
+        </tbody>
+      </table>
     </figure>
   );
 }

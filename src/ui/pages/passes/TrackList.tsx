@@ -1,7 +1,7 @@
 /** Upcoming tracks: one card each, with the aim it needs and buttons to hand it to the Plan screen. */
 import type { Pass } from '../../../core/orbit/passes.ts';
 import { fmtNum } from '../../format.ts';
-import { formatCountdown, formatDays, formatUtc, nextPassAfter, type DisplayTrack } from './computePasses.ts';
+import { formatCountdown, formatDays, formatUtc, nextPassAfter, trackNextAfterMs, type DisplayTrack } from './computePasses.ts';
 
 const localTime = (ms: number) => new Date(ms).toLocaleString(undefined, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', second: '2-digit' });
 
@@ -33,6 +33,7 @@ export function NextPassCountdown(props: { passes: readonly Pass[]; nowMs: numbe
 export function TrackList(props: {
   tracks: readonly DisplayTrack[];
   lossesDb: readonly (number | null)[];
+  nowMs: number;
   onAim: (t: DisplayTrack) => void;
   onAdd: (t: DisplayTrack) => void;
 }) {
@@ -41,6 +42,8 @@ export function TrackList(props: {
     <ol className="gm-passes-tracks" data-testid="track-list">
       {props.tracks.map((t, i) => {
         const loss = props.lossesDb[i];
+        const upcomingMs = trackNextAfterMs(t, props.nowMs);
+        const lastMs = Date.parse(t.passTimesUtc[t.passTimesUtc.length - 1]);
         return (
           <li key={t.id + t.satellite} className="gm-card" data-testid={`track-${i}`} data-incidence-deg={t.incidenceDeg} data-reflector-azimuth-deg={t.reflectorAzimuthDeg}>
             <h3 className="gm-track-title">
@@ -73,11 +76,11 @@ export function TrackList(props: {
                 <dd>{t.repeatDays === null ? 'one pass in the window' : `every ${formatDays(t.repeatDays)}`}</dd>
               </div>
               <div>
-                <dt>Next pass</dt>
+                <dt>{upcomingMs !== null ? 'Next pass' : 'Last pass in the window (over)'}</dt>
                 <dd data-testid={`track-next-${i}`}>
-                  {formatUtc(t.nextTimeMs)}
+                  {formatUtc(upcomingMs ?? lastMs)}
                   <br />
-                  {localTime(t.nextTimeMs)} local
+                  {localTime(upcomingMs ?? lastMs)} local
                 </dd>
               </div>
               {loss !== null && loss !== undefined ? (

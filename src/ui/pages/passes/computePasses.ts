@@ -219,6 +219,11 @@ export function nextPassAfter<T extends { timeMs: number }>(passes: readonly T[]
   return passes.find((p) => p.timeMs > nowMs) ?? null;
 }
 
+/** A track's first pass strictly after `nowMs` (ms), or null when all its passes in the window are over. */
+export function trackNextAfterMs(t: Pick<Track, 'passTimesUtc'>, nowMs: number): number | null {
+  return t.passTimesUtc.map((u) => Date.parse(u)).find((ms) => ms > nowMs) ?? null;
+}
+
 /**
  * Time left as the crew reads it: "2 d 03:04:05", "03:04:05", "00:00:09". Whole seconds, rounded up, so the
  * display reaches 00:00:00 only at the pass. Negative or zero → "now".

@@ -104,22 +104,27 @@ export interface TimelineLayout {
 }
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-/** At most this many labelled day ticks, so labels never collide on a phone. */
-const MAX_LABELS = 8;
+/** Room one "30 Dec" label needs at 11 px type, px: labels are at least this far apart so they never collide. */
+export const TIMELINE_LABEL_PX = 46;
+/** Rows (ascending, descending) and the day axis, px from the top of a 120 px high drawing. */
+export const TIMELINE_ROWS_Y = [28, 62] as const;
+export const TIMELINE_AXIS_Y = 90;
 
 /**
  * Timeline of passes in [startMs, startMs + days): x proportional to time, one row per direction, a tick at each
- * UTC midnight and a label ("3 Dec", UTC) every ⌈days / 8⌉ days. Passes outside the window are left out.
+ * UTC midnight and a label ("3 Dec", UTC) on every n-th tick, n chosen so labels are TIMELINE_LABEL_PX apart or more.
+ * Passes outside the window are left out.
  */
 export function timelineLayout(passes: readonly TimelineInput[], startMs: number, days: number, size = { width: 360, height: 120 }): TimelineLayout {
   const plotLeft = 96, plotRight = size.width - 10;
   const endMs = startMs + days * MS_PER_DAY;
   const x = (t: number) => plotLeft + ((t - startMs) / (endMs - startMs)) * (plotRight - plotLeft);
   const rows = [
-    { direction: 'ascending' as const, y: 30, label: 'Ascending ▲' },
-    { direction: 'descending' as const, y: 72, label: 'Descending ▼' },
+    { direction: 'ascending' as const, y: TIMELINE_ROWS_Y[0], label: 'Ascending ▲' },
+    { direction: 'descending' as const, y: TIMELINE_ROWS_Y[1], label: 'Descending ▼' },
   ];
-  const every = Math.max(1, Math.ceil(days / MAX_LABELS));
+  const pxPerDay = (plotRight - plotLeft) / days;
+  const every = Math.max(1, Math.ceil(TIMELINE_LABEL_PX / pxPerDay));
   const ticks: TimelineTick[] = [];
   const firstMidnight = Math.ceil(startMs / MS_PER_DAY) * MS_PER_DAY;
   for (let t = firstMidnight, i = 0; t <= endMs; t += MS_PER_DAY, i++) {
