@@ -1,6 +1,6 @@
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_TLE } from '../../src/demo/elements.ts';
+import { DEMO_TLE, DEMO_TLE_B } from '../../src/demo/elements.ts';
 import { BASE_URL, fill, launch, phoneContext, screenshot, text } from './browser.ts';
 
 /** An invented mid-latitude site (no real place intended). */
@@ -124,6 +124,12 @@ describe('Passes screen', () => {
     expect(await text(page, 'passes-site')).toContain('-38.62000°, 146.07000°');
     expect(await page.locator('[data-testid="gps-error"]').count()).toBe(0);
     await screenshot(page, 'passes-typed-site');
+
+    // Elements from a file (the invented second satellite), kept as ordinary elements, not demo.
+    await page.locator('[data-testid="tle-file"]').setInputFiles({ name: 'glint-b.tle', mimeType: 'text/plain', buffer: Buffer.from(DEMO_TLE_B) });
+    await expect.poll(() => text(page, 'set-99002')).toContain('GLINT-B');
+    expect(await text(page, 'set-99002')).not.toContain('DEMO');
+    expect(await text(page, 'tle-message')).toBe('Kept 1 element set: GLINT-B.');
 
     // No elements at hand: the circular-orbit approximation, marked APPROXIMATE all the way to the Plan screen.
     await page.locator('[data-testid="circular-panel"] summary').click();

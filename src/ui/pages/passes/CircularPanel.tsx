@@ -20,7 +20,7 @@ export function CircularPanel(props: { siteLatDeg: number | null; onUse: (g: Geo
   return (
     <details className="gm-section gm-card" data-testid="circular-panel">
       <summary className="gm-circular-summary">No elements at hand? Circular-orbit approximation</summary>
-      <p className="gm-warn">APPROXIMATE: a circular orbit over a round, rotating Earth. Headings and incidence are good to a few tenths of a degree; it gives no pass times.</p>
+      <p className="gm-warn">APPROXIMATE: a circular orbit over a round, rotating Earth. It gives no pass times; use an element set as soon as you have one.</p>
       <div className="gm-row">
         <NumberField label="Orbit altitude" unit="km" value={form.altitudeKm} onChange={(v) => set({ altitudeKm: v })} error={r.errors.altitudeKm} testId="circ-altitude" />
         <NumberField label="Inclination" unit="°" value={form.inclinationDeg} onChange={(v) => set({ inclinationDeg: v })} error={r.errors.inclinationDeg} testId="circ-inclination" />

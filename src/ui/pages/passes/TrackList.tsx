@@ -68,7 +68,7 @@ export function TrackList(props: {
                 <dd className="gm-mid" data-testid={`track-tilt-${i}`}>{fmtNum(t.baseTiltDeg, 2)}°</dd>
               </div>
               <div>
-                <dt>Ground-track heading</dt>
+                <dt>Heading (site horizontal)</dt>
                 <dd>{fmtNum(t.headingDeg, 2)}° true, looking {t.look}</dd>
               </div>
               <div>

@@ -163,11 +163,12 @@ export function computePasses(sets: readonly StoredElementSet[], site: SitePosit
  * Heading to hand to the Plan screen so that its aim (reflector azimuth = heading − 90° right-looking, + 90°
  * left-looking; core pointing.ts) faces the track's true line of sight:
  *   planHeading = reflectorAzimuth + 90° (right) or − 90° (left).
- * Why not the ground-track heading: at zero Doppler the line of sight is perpendicular to the satellite's velocity
- * in 3-D, but that velocity is not level in the site's ellipsoidal frame (it is level about the geocentric radial,
- * which leans from the ellipsoid normal by up to 0.19° at 45° latitude). Projected on the site's horizontal the two
- * azimuths then differ by about that lean / tan(incidence): 0.1°–0.5° at mid latitudes and low incidence. The core's
- * reflectorAzimuthDeg is the exact one, so the plan is built on it; the screen still shows the ground-track heading.
+ * Why not the track's own headingDeg: at zero Doppler the line of sight is perpendicular to the satellite's
+ * velocity in 3-D, but that velocity is not level on the site's horizontal (for GLINT-A it climbs or sinks by
+ * 0.02°–0.2°: the ellipsoid normal leans from the geocentric radial, and the orbit's height varies slightly around each revolution). On the
+ * horizontal the line of sight then differs from heading ∓ 90° by about that tilt / tan(incidence), measured up to
+ * 0.46° at 24° incidence (33° S) and 0.28° at 22° incidence (52° N). The core's reflectorAzimuthDeg is the exact
+ * one, so the plan is built on it; the Passes screen still shows the track's headingDeg.
  */
 export function planHeadingDeg(t: Pick<Track, 'reflectorAzimuthDeg' | 'look'>): number {
   return normalizeAzimuthDeg(t.look === 'right' ? t.reflectorAzimuthDeg + 90 : t.reflectorAzimuthDeg - 90);
