@@ -72,6 +72,26 @@ export function readingFromEvent(e: Event, timeMs: number): OrientationReading |
 export function createOrientationSensor(env: OrientationEnv): OrientationSensor {
   let permission: 'unknown' | 'granted' | 'denied' = env.requestPermission ? 'unknown' : 'granted';
   const permissionWatchers = new Set<() => void>();
+  let probed = false;
+
+  /**
+   * Ask once without a tap. Chromium (which has requestPermission too) answers 'granted' at once where the sensors
+   * are allowed; iOS refuses a call made outside a tap. Only a 'granted' is taken: anything else leaves the
+   * question open for the crew's tap on "Allow motion sensors".
+   */
+  const probePermission = () => {
+    if (probed || permission !== 'unknown' || !env.requestPermission) return;
+    probed = true;
+    env
+      .requestPermission()
+      .then((answer) => {
+        if (answer === 'granted' && permission === 'unknown') {
+          permission = 'granted';
+          permissionWatchers.forEach((w) => w());
+        }
+      })
+      .catch(() => undefined);
+  };
 
   return {
     permissionNeeded: () => permission !== 'granted' && env.requestPermission !== undefined,
@@ -156,6 +176,7 @@ export function createOrientationSensor(env: OrientationEnv): OrientationSensor 
       if (env.hasAbsoluteEvent) env.target.addEventListener('deviceorientationabsolute', onEvent);
       env.target.addEventListener('deviceorientation', onEvent);
       permissionWatchers.add(onPermission);
+      probePermission();
       const timer = env.setInterval(evaluate, TICK_MS);
       evaluate();
       return () => {

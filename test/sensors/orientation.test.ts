@@ -142,7 +142,8 @@ describe('orientation stream', () => {
 
 describe('iOS permission', () => {
   it('asks for a tap instead of reporting no sensor, then listens once granted', async () => {
-    const s = stubEnv({ absoluteEvent: false, requestPermission: async () => 'granted' });
+    let calls = 0;
+    const s = stubEnv({ absoluteEvent: false, requestPermission: async () => (calls++ === 0 ? 'denied' : 'granted') });
     const c = collect(s.env);
     expect(c.sensor.permissionNeeded()).toBe(true);
     s.advance(NO_SENSOR_AFTER_MS * 2);
@@ -151,6 +152,29 @@ describe('iOS permission', () => {
     expect(c.sensor.permissionNeeded()).toBe(false);
     s.fire('deviceorientation', { alpha: 1, beta: 2, gamma: 3, webkitCompassHeading: 10, webkitCompassAccuracy: 3 });
     expect(c.statuses.at(-1)).toMatchObject({ kind: 'absolute', source: 'ios-compass' });
+    c.stop();
+  });
+
+  it('takes a "granted" from a silent first ask (Chromium), so no tap is needed there', async () => {
+    const s = stubEnv({ requestPermission: async () => 'granted' });
+    const c = collect(s.env);
+    await Promise.resolve();
+    await Promise.resolve();
+    expect(c.sensor.permissionNeeded()).toBe(false);
+    s.advance(NO_SENSOR_AFTER_MS);
+    expect(c.kinds()).toEqual(['permission-needed', 'starting', 'no-sensor']);
+    c.stop();
+  });
+
+  it('ignores a refusal of the silent first ask (iOS refuses calls made outside a tap)', async () => {
+    let calls = 0;
+    const s = stubEnv({ absoluteEvent: false, requestPermission: () => (calls++ === 0 ? Promise.reject(new Error('NotAllowedError')) : Promise.resolve('granted')) });
+    const c = collect(s.env);
+    await Promise.resolve();
+    await Promise.resolve();
+    expect(c.sensor.permissionNeeded()).toBe(true);
+    expect(c.kinds()).toEqual(['permission-needed']);
+    expect(await c.sensor.requestPermission()).toBe('granted');
     c.stop();
   });
 

@@ -171,7 +171,7 @@ const empty = (state: AlignState, statusText: string, extra: Partial<AlignView> 
 
 /** One frame of the Align screen. Never throws: a core error comes back in `error`. */
 export function computeAlign(i: AlignInput): AlignView {
-  if (i.live.nearVertical) return empty('cannot-measure', 'CANNOT MEASURE: the phone is near vertical', { error: i.live.nearVertical });
+  if (i.live.nearVertical) return empty('cannot-measure', 'Cannot measure: the phone is near vertical', { error: i.live.nearVertical });
   const m = i.live.measured;
   if (!m) return empty(i.target ? 'waiting' : 'no-target', i.target ? 'Waiting for orientation readings…' : 'Plan an aim first');
   try {
@@ -191,14 +191,14 @@ export function computeAlign(i: AlignInput): AlignView {
     let statusText: string;
     if (g.allWithin) {
       state = 'within';
-      statusText = 'WITHIN TOLERANCE — hold and capture';
+      statusText = 'Within tolerance: hold still and capture';
     } else if (azimuthTrueDeg === null && g.tilt.within && g.roll.within) {
       state = 'tilt-roll-within';
-      statusText = 'TILT AND ROLL WITHIN TOLERANCE — set the azimuth by tape line';
+      statusText = 'Tilt and roll within tolerance; set the azimuth by a tape line';
     } else {
       state = 'adjust';
       const out = [g.azimuth.errorDeg !== null && !g.azimuth.within ? 'azimuth' : null, g.tilt.within ? null : 'tilt', g.roll.within ? null : 'roll'].filter(Boolean);
-      statusText = `ADJUST: ${out.join(', ')} out of tolerance`;
+      statusText = `Adjust: ${out.join(', ')} out of tolerance`;
     }
     return { state, statusText, measured, azimuthNote, guidance: g, losses, worstLossDb: worst(losses), azimuthAssumed: azimuthTrueDeg === null, error: null };
   } catch (e) {
