@@ -9,6 +9,7 @@ import { BackupError } from './errors.ts';
 import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, type BackupDocument, type BackupPhoto, type BackupTable } from './backup/format.ts';
 import { validateBackup, type BackupCheckOptions } from './backup/validate.ts';
 import { setMeta } from './repo/meta.ts';
+import { rebuildSiteVisits } from './repo/siteVisits.ts';
 
 export { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, validateBackup };
 export type { BackupCheckOptions, BackupDocument, BackupPhoto, BackupTable };
@@ -87,7 +88,7 @@ export function storedRows(doc: BackupDocument): Record<BackupTable, Record<stri
 export async function restoreBackup(db: GlintmarkDb, input: string | unknown, opts: RestoreOptions = {}): Promise<TableCounts> {
   const doc = validateBackup(input, opts);
   const rows = storedRows(doc);
-  return db.transaction('rw', [...BACKUP_TABLES], async () => {
+  return db.transaction('rw', [...BACKUP_TABLES, 'siteVisits'], async () => {
     if (!opts.replace) {
       let existing = 0;
       for (const t of BACKUP_TABLES) if (t !== 'conflicts') existing += await db.table(t).count();
@@ -105,6 +106,7 @@ export async function restoreBackup(db: GlintmarkDb, input: string | unknown, op
       await db.table(t).bulkAdd(rows[t]);
       counts[t] = rows[t].length;
     }
+    await rebuildSiteVisits(db);
     return counts;
   });
 }

@@ -18,7 +18,9 @@ import type {
   ReflectorRecord,
   RevisionRecord,
   SiteRecord,
+  SiteVisitsRecord,
 } from './types.ts';
+import { rebuildSiteVisits } from './repo/siteVisits.ts';
 
 export type GlintmarkDb = Dexie & {
   sites: Table<SiteRecord, string>;
@@ -31,9 +33,10 @@ export type GlintmarkDb = Dexie & {
   drafts: Table<DraftRecord, string>;
   meta: Table<MetaRecord, string>;
   conflicts: Table<ConflictRecord, string>;
+  siteVisits: Table<SiteVisitsRecord, string>;
 };
 
-export const CURRENT_SCHEMA_VERSION = 2;
+export const CURRENT_SCHEMA_VERSION = 3;
 
 /**
  * Version 1 (released 0.1). Sites had `gnssFix: boolean` instead of `positionSource`; installations had a
@@ -56,6 +59,14 @@ export const SCHEMA_V1 = {
 export const SCHEMA_V2 = {
   installations: 'id, siteId, reflectorId, [siteId+installedAtMs], *geometryIds',
   conflicts: 'id, [table+recordId]',
+} as const;
+
+/**
+ * Version 3: a derived per-site summary (last visit, counts) so the site list does not read every installation.
+ * Its upgrade builds the summary from the existing rows; records themselves are not changed.
+ */
+export const SCHEMA_V3 = {
+  siteVisits: 'siteId',
 } as const;
 
 /** The declination model the 0.1 release used for every compass reading (its only model). */
@@ -100,8 +111,12 @@ export function openGlintmarkDb(name = 'glintmark'): GlintmarkDb {
   const db = new Dexie(name) as GlintmarkDb;
   // Version 1: never alter (migrated databases depend on it).
   db.version(1).stores(SCHEMA_V1);
-  // Version 2: never alter once shipped; add version 3 for further changes.
+  // Version 2: never alter (it has an upgrade).
   db.version(2).stores(SCHEMA_V2).upgrade(upgradeV1ToV2);
+  // Version 3: never alter once shipped; add version 4 for further changes.
+  db.version(3)
+    .stores(SCHEMA_V3)
+    .upgrade((tx) => rebuildSiteVisits({ installations: tx.table('installations'), inspections: tx.table('inspections'), siteVisits: tx.table('siteVisits') }));
   db.on('populate', (tx) => {
     tx.table('meta').add({ key: 'schema', value: { createdWithVersion: CURRENT_SCHEMA_VERSION, createdAtMs: Date.now() } });
   });

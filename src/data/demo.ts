@@ -4,6 +4,7 @@
  * points to (e.g. a real reflector placed on a demo site) is kept, and reported, so no reference dangles.
  */
 import type { GlintmarkDb } from './db.ts';
+import { rebuildSiteVisits } from './repo/siteVisits.ts';
 import { ENTITY_TABLES, type EntityRecord, type EntityTable, type VersionedTable } from './types.ts';
 
 export interface DemoRemovalReport {
@@ -25,7 +26,7 @@ function parentsOf(table: EntityTable, row: AnyEntity): [EntityTable, string][] 
 }
 
 export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport> {
-  const scope = [...ENTITY_TABLES, 'photos', 'revisions', 'conflicts'];
+  const scope = [...ENTITY_TABLES, 'photos', 'revisions', 'conflicts', 'siteVisits'];
   return db.transaction('rw', scope, async () => {
     const rows = new Map<EntityTable, AnyEntity[]>();
     for (const t of ENTITY_TABLES) rows.set(t, (await db.table(t).toArray()) as AnyEntity[]);
@@ -80,6 +81,7 @@ export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport
     const conflictIds = (await db.conflicts.toArray()).filter((c) => gone.has(key(c.table, c.recordId))).map((c) => c.id);
     await db.conflicts.bulkDelete(conflictIds);
     report.removed.conflicts = conflictIds.length;
+    await rebuildSiteVisits(db);
     return report;
   });
 }

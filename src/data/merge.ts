@@ -24,6 +24,7 @@ import { BackupError } from './errors.ts';
 import { resolveContext, type WriteContext } from './repo/context.ts';
 import { makeRevision } from './repo/revisions.ts';
 import { liveSiteWithCode } from './repo/sites.ts';
+import { rebuildSiteVisits } from './repo/siteVisits.ts';
 import { VERSIONED_TABLES, type ConflictRecord, type RevisionRecord, type VersionedTable } from './types.ts';
 
 export interface MergeConflict {
@@ -68,7 +69,7 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
     BACKUP_TABLES.map((t) => [t, { added: 0, updated: 0, unchanged: 0, localNewer: 0, conflicts: [] }]),
   ) as unknown as MergeReport;
 
-  return db.transaction('rw', [...BACKUP_TABLES], async () => {
+  return db.transaction('rw', [...BACKUP_TABLES, 'siteVisits'], async () => {
     const local = new Map<BackupTable, Set<string>>();
     for (const t of BACKUP_TABLES) local.set(t, new Set((await db.table(t).toCollection().primaryKeys()) as string[]));
     const docIds = new Map(BACKUP_TABLES.map((t) => [t, new Set(rows[t].map((r) => r.id as string))]));
@@ -154,6 +155,7 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
         report.conflicts.added++;
       }
     }
+    await rebuildSiteVisits(db);
     return report;
   });
 }

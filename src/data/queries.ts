@@ -17,16 +17,15 @@ import type {
 
 /** Live sites with the time of their latest live installation or inspection (one read transaction). */
 export async function querySiteListSources(db: GlintmarkDb): Promise<SiteListSource[]> {
-  return db.transaction('r', ['sites', 'installations', 'inspections'], async () => {
-    const [sites, installations, inspections] = await Promise.all([db.sites.toArray(), db.installations.toArray(), db.inspections.toArray()]);
-    const last = new Map<string, number>();
-    const see = (siteId: string, atMs: number) => {
-      const cur = last.get(siteId);
-      if (cur === undefined || atMs > cur) last.set(siteId, atMs);
-    };
-    for (const i of installations) if (i.deletedAtMs === null) see(i.siteId, i.installedAtMs);
-    for (const i of inspections) if (i.deletedAtMs === null) see(i.siteId, i.inspectedAtMs);
-    return sites.filter((s) => s.deletedAtMs === null).map((site) => ({ site, lastVisitAtMs: last.get(site.id) ?? null }));
+  return db.transaction('r', ['sites', 'siteVisits'], async () => {
+    const [sites, visits] = await Promise.all([db.sites.toArray(), db.siteVisits.toArray()]);
+    const bySite = new Map(visits.map((v) => [v.siteId, v]));
+    return sites
+      .filter((s) => s.deletedAtMs === null)
+      .map((site) => {
+        const v = bySite.get(site.id);
+        return { site, lastVisitAtMs: v?.lastVisitAtMs ?? null, installationCount: v?.installationCount ?? 0, inspectionCount: v?.inspectionCount ?? 0 };
+      });
   });
 }
 

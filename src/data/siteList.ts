@@ -20,10 +20,12 @@ export interface SiteListQuery {
   here?: Here | null;
 }
 
-/** What the list reads per site: the site and the time of its latest live installation or inspection. */
+/** What the list reads per site: the site, the time of its latest live installation or inspection, and counts. */
 export interface SiteListSource {
   site: SiteRecord;
   lastVisitAtMs: number | null;
+  installationCount: number;
+  inspectionCount: number;
 }
 
 export interface SiteListRow extends SiteListSource {

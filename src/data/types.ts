@@ -240,6 +240,15 @@ export interface ConflictRecord {
   resolvedAtMs: number | null;
 }
 
+/** Derived summary per site (see repo/siteVisits.ts); never edited directly, never backed up. */
+export interface SiteVisitsRecord {
+  siteId: string;
+  /** Latest installedAtMs / inspectedAtMs among the site's live installations and inspections. */
+  lastVisitAtMs: number | null;
+  installationCount: number;
+  inspectionCount: number;
+}
+
 export const ENTITY_TABLES = ['sites', 'reflectors', 'geometries', 'installations', 'inspections'] as const;
 /** Tables edited through the generic repositories. */
 export type EntityTable = (typeof ENTITY_TABLES)[number];

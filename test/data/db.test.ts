@@ -1,7 +1,7 @@
 import 'fake-indexeddb/auto';
 import Dexie from 'dexie';
 import { afterEach, describe, expect, it } from 'vitest';
-import { CURRENT_SCHEMA_VERSION, SCHEMA_V1, V1_DECLINATION_MODEL, openGlintmarkDb, type GlintmarkDb } from '../../src/data/db.ts';
+import { CURRENT_SCHEMA_VERSION, SCHEMA_V1, SCHEMA_V2, V1_DECLINATION_MODEL, openGlintmarkDb, type GlintmarkDb } from '../../src/data/db.ts';
 import { getMeta } from '../../src/data/repo/meta.ts';
 import { parseFields, splitRow } from '../../src/data/schema/validate.ts';
 import type { EntityTable } from '../../src/data/types.ts';
@@ -69,7 +69,7 @@ describe('schema versions', () => {
     const db = openGlintmarkDb(uniqueName());
     await db.open();
     expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
-    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 2 });
+    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 3 });
     db.close();
   });
 
@@ -78,7 +78,7 @@ describe('schema versions', () => {
     await writeV1(name);
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(2);
+    expect(db.verno).toBe(3);
 
     const { gnssFix: _g1, ...siteGnss } = v1Site(ID.siteGnss, 'MF-01', true);
     const { gnssFix: _g2, ...siteTyped } = v1Site(ID.siteTyped, 'MF-02', false);
@@ -98,6 +98,8 @@ describe('schema versions', () => {
     expect((await db.installations.where('geometryIds').equals(ID.geo).primaryKeys())).toEqual([ID.instWithGeo]);
     expect(await db.conflicts.count()).toBe(0);
     expect(await getMeta(db, 'migration-v1-v2')).toMatchObject({ sites: 2, installations: 2 });
+    // v2 → v3 ran after it: the visit summary is built from the migrated installations.
+    expect(await db.siteVisits.toArray()).toEqual([{ siteId: ID.siteGnss, lastVisitAtMs: T0_MS, installationCount: 2, inspectionCount: 0 }]);
     for (const t of ['sites', 'reflectors', 'geometries', 'installations'] as const) await expectValid(db, t);
     db.close();
 
@@ -105,5 +107,35 @@ describe('schema versions', () => {
     const again = openGlintmarkDb(name);
     expect(await again.installations.get(ID.instNoGeo)).toEqual({ ...instNoGeo, geometryIds: [], declinationModel: null });
     again.close();
+  });
+});
+
+describe('version 2 → 3', () => {
+  it('builds the per-site visit summary from live installations and inspections; records unchanged', async () => {
+    const name = uniqueName();
+    const raw = new Dexie(name);
+    raw.version(1).stores(SCHEMA_V1);
+    raw.version(2).stores(SCHEMA_V2);
+    const inst = (id: string, siteId: string, installedAtMs: number, deletedAtMs: number | null) => ({
+      ...v1Installation(id, null, null), siteId, installedAtMs, deletedAtMs, geometryId: undefined, geometryIds: [], declinationModel: null,
+    });
+    const rows = [
+      inst(ID.instWithGeo, ID.siteGnss, T0_MS + 5, null),
+      inst(ID.instNoGeo, ID.siteGnss, T0_MS + 99, T0_MS + 100), // deleted: not a visit
+      inst(ID.rev, ID.siteTyped, T0_MS + 7, null),
+    ].map(({ geometryId: _g, ...r }) => r);
+    await raw.table('installations').bulkAdd(rows);
+    await raw.table('inspections').add({ id: ID.geo, ...meta, siteId: ID.siteTyped, reflectorId: ID.refl, inspectedAtMs: T0_MS + 50, checklist: {}, remeasured: null, crew: [], notes: '', photoIds: [], demo: false });
+    raw.close();
+
+    const db = openGlintmarkDb(name);
+    const visits = (await db.siteVisits.toArray()).sort((a, b) => a.siteId.localeCompare(b.siteId));
+    expect(visits).toEqual([
+      { siteId: ID.siteGnss, lastVisitAtMs: T0_MS + 5, installationCount: 1, inspectionCount: 0 },
+      { siteId: ID.siteTyped, lastVisitAtMs: T0_MS + 50, installationCount: 1, inspectionCount: 1 },
+    ]);
+    expect(await db.installations.toArray()).toEqual(expect.arrayContaining(rows));
+    expect(await db.installations.count()).toBe(3);
+    db.close();
   });
 });

@@ -8,6 +8,8 @@ import { T0_MS, siteFields } from './helpers.ts';
 const src = (code: string, o: Partial<SiteRecord> = {}, lastVisitAtMs: number | null = null): SiteListSource => ({
   site: { id: crypto.randomUUID(), rev: 1, createdAtMs: T0_MS, updatedAtMs: T0_MS, deletedAtMs: null, ...siteFields({ code }), ...o },
   lastVisitAtMs,
+  installationCount: 0,
+  inspectionCount: 0,
 });
 
 describe('site list search and sort', () => {

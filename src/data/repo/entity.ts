@@ -11,9 +11,15 @@ import type { EntityFieldsByTable, EntityRecord, EntityTable, RevisionRecord } f
 import { resolveContext, type WriteContext } from './context.ts';
 import { CASCADE, REF_CHECKS, type RefCheck } from './refs.ts';
 import { diffFields, history, makeRevision, snapshotOf } from './revisions.ts';
+import { refreshSiteVisits } from './siteVisits.ts';
 
 /** Tables every entity write may touch (reference checks, cascades, photos, history). */
-export const WRITE_SCOPE = ['sites', 'reflectors', 'geometries', 'installations', 'inspections', 'photos', 'revisions'] as const;
+export const WRITE_SCOPE = ['sites', 'reflectors', 'geometries', 'installations', 'inspections', 'photos', 'revisions', 'siteVisits'] as const;
+
+/** Tables whose edits (V) or deletions (D, with cascades) can change a site's visit summary. */
+const VISITS_ON_EDIT = new Set<EntityTable>(['installations', 'inspections']);
+const VISITS_ON_DELETE = new Set<EntityTable>(['sites', 'reflectors', 'installations', 'inspections']);
+const siteIdOf = (table: EntityTable, row: { id: string }) => (table === 'sites' ? row.id : (row as unknown as { siteId: string }).siteId);
 
 export interface EditContext extends WriteContext {
   /** The rev the caller edited; a different current rev rejects with StaleRecordError. */
@@ -81,6 +87,7 @@ export function makeEntityRepo<T extends EntityTable>(
         await checks(db, id, f, () => true);
         await tbl(db).add(rec);
         await db.revisions.add(makeRevision({ table, recordId: id, rev: 1, atMs: nowMs, by, kind: 'create', snapshot: snapshotOf(rec) }));
+        if (VISITS_ON_EDIT.has(table)) await refreshSiteVisits(db, [siteIdOf(table, rec)]);
       });
       return rec;
     },
@@ -99,6 +106,7 @@ export function makeEntityRepo<T extends EntityTable>(
         const next = { ...cur, ...f, rev: cur.rev + 1, updatedAtMs: nowMs } as EntityRecord<T>;
         await tbl(db).put(next);
         await db.revisions.add(makeRevision({ table, recordId: id, rev: next.rev, atMs: nowMs, by, kind: 'update', changes }));
+        if (VISITS_ON_EDIT.has(table)) await refreshSiteVisits(db, [siteIdOf(table, cur), siteIdOf(table, next)]);
         return next;
       });
     },
@@ -113,6 +121,7 @@ export function makeEntityRepo<T extends EntityTable>(
           const rows = await db.table<EntityRecord<EntityTable>, string>(child.table).where(child.field).equals(id).toArray();
           for (const row of rows) if (row.deletedAtMs === null) await setDeleted(db, child.table, row, nowMs, by, rev.id);
         }
+        if (VISITS_ON_DELETE.has(table)) await refreshSiteVisits(db, [siteIdOf(table, cur)]);
         return { ...cur, deletedAtMs: nowMs, rev: cur.rev + 1, updatedAtMs: nowMs };
       });
     },
@@ -134,6 +143,7 @@ export function makeEntityRepo<T extends EntityTable>(
             if (last?.kind === 'delete' && last.cascadeOf === deleteRev.id) await setDeleted(db, child.table, row, nowMs, by, rev.id);
           }
         }
+        if (VISITS_ON_DELETE.has(table)) await refreshSiteVisits(db, [siteIdOf(table, cur)]);
         return { ...cur, deletedAtMs: null, rev: cur.rev + 1, updatedAtMs: nowMs };
       });
     },
