@@ -64,6 +64,7 @@ export function geometryFromCircular(g: CircularOrbitGeometry, direction: PassDi
     incidenceDeg: String(p.incidenceDeg.toFixed(2)),
     headingDeg: String(p.headingDeg.toFixed(2)),
     look,
+    losAzimuthDeg: p.reflectorAzimuthDeg,
     label: `APPROXIMATE circular orbit ${(g.altitudeM / 1000).toFixed(0)} km, ${inclinationDeg}° inclination, ${direction} ${p.incidenceDeg.toFixed(1)}°`,
     direction,
     source: 'circular-approximation',

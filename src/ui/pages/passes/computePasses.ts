@@ -11,7 +11,6 @@ import { parseIsoUtcMs } from '../../../core/orbit/time.ts';
 import { groupTracks, type Track } from '../../../core/orbit/tracks.ts';
 import type { TrihedralShapeName } from '../../../core/radar/shapes.ts';
 import { misalignment } from '../../../core/reflector/misalignment.ts';
-import { normalizeAzimuthDeg } from '../../../core/units.ts';
 import { requireIncidenceDeg, requireInRange, requireLatDeg, requireLonDeg } from '../../../core/validate.ts';
 import { parseField } from '../../components/fields.tsx';
 import { DEFAULT_WORKFLOW, type GeometryInput } from '../../state/workflow.ts';
@@ -159,27 +158,14 @@ export function computePasses(sets: readonly StoredElementSet[], site: SitePosit
   return { passes, tracks: tracks.map((t, index) => ({ ...t, index })), warnings, errors };
 }
 
-/**
- * Heading to hand to the Plan screen so that its aim (reflector azimuth = heading − 90° right-looking, + 90°
- * left-looking; core pointing.ts) faces the track's true line of sight:
- *   planHeading = reflectorAzimuth + 90° (right) or − 90° (left).
- * Why not the track's own headingDeg: at zero Doppler the line of sight is perpendicular to the satellite's
- * velocity in 3-D, but that velocity is not level on the site's horizontal (for GLINT-A it climbs or sinks by
- * 0.02°–0.2°: the ellipsoid normal leans from the geocentric radial, and the orbit's height varies slightly around each revolution). On the
- * horizontal the line of sight then differs from heading ∓ 90° by about that tilt / tan(incidence), measured up to
- * 0.46° at 24° incidence (33° S) and 0.28° at 22° incidence (52° N). The core's reflectorAzimuthDeg is the exact
- * one, so the plan is built on it; the Passes screen still shows the track's headingDeg.
- */
-export function planHeadingDeg(t: Pick<Track, 'reflectorAzimuthDeg' | 'look'>): number {
-  return normalizeAzimuthDeg(t.look === 'right' ? t.reflectorAzimuthDeg + 90 : t.reflectorAzimuthDeg - 90);
-}
-
 /** The Plan screen's geometry for a track (text fields as the Plan form keeps them). */
 export function geometryFromTrack(t: DisplayTrack): GeometryInput {
   return {
     incidenceDeg: String(t.incidenceDeg.toFixed(2)),
-    headingDeg: String(planHeadingDeg(t).toFixed(2)),
+    headingDeg: String(t.headingDeg.toFixed(2)),
     look: t.look,
+    // The exact line of sight from the orbit: heading ∓ 90° alone would miss it by a few tenths of a degree.
+    losAzimuthDeg: t.reflectorAzimuthDeg,
     label: t.label,
     direction: t.direction,
     source: 'orbital-elements',
@@ -246,14 +232,14 @@ export const formatUtc = (timeMs: number): string => new Date(timeMs).toISOStrin
 
 /**
  * Loss of each track, dB below peak, for the reflector as currently aimed, along the track's true line of sight
- * (planHeadingDeg). The pattern depends on the shape only in the optical model, so a unit edge and wavelength
+ * (losAzimuthDeg). The pattern depends on the shape only in the optical model, so a unit edge and wavelength
  * stand in. +Infinity: outside the corner. Null: no aim yet.
  */
-export function trackLossesDb(tracks: readonly Pick<Track, 'incidenceDeg' | 'reflectorAzimuthDeg' | 'look'>[], target: ReflectorOrientation | null, shape: TrihedralShapeName): (number | null)[] {
+export function trackLossesDb(tracks: readonly Pick<Track, 'incidenceDeg' | 'headingDeg' | 'reflectorAzimuthDeg' | 'look'>[], target: ReflectorOrientation | null, shape: TrihedralShapeName): (number | null)[] {
   return tracks.map((t) => {
     if (!target) return null;
     try {
-      return misalignment({ shape, edgeM: 1, wavelengthM: 0.05 }, target, { incidenceDeg: t.incidenceDeg, headingDeg: planHeadingDeg(t), look: t.look }).lossDb;
+      return misalignment({ shape, edgeM: 1, wavelengthM: 0.05 }, target, { incidenceDeg: t.incidenceDeg, headingDeg: t.headingDeg, look: t.look, losAzimuthDeg: t.reflectorAzimuthDeg }).lossDb;
     } catch {
       return null;
     }
