@@ -28,7 +28,7 @@ async function encodeBlobField(row: Record<string, unknown>): Promise<Record<str
 }
 
 /** The reverse of encodeBlobField, given the mime type that goes with the bytes. */
-export function decodeBlobField(row: Record<string, unknown>): Record<string, unknown> {
+function decodeBlobField(row: Record<string, unknown>): Record<string, unknown> {
   if (typeof row.dataBase64 !== 'string') return row;
   const { dataBase64, ...rest } = row;
   return { ...rest, blob: new Blob([base64ToBytes(dataBase64 as string)], { type: String(row.mime ?? '') }) };

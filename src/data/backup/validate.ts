@@ -22,7 +22,7 @@ export interface BackupCheckOptions {
  * True when `text` starts like JSON but ends inside a string or an open object/array: the usual result
  * of a copy cut short. Independent of the engine's JSON.parse wording.
  */
-export function looksTruncated(text: string): boolean {
+function looksTruncated(text: string): boolean {
   const t = text.trim();
   if (!t.startsWith('{') && !t.startsWith('[')) return false;
   let depth = 0;

@@ -24,7 +24,7 @@ export interface SitesFeatureCollection {
 }
 
 /** Latest live installation per site id. */
-export function latestInstallationBySite(installations: readonly InstallationRecord[]): Map<string, InstallationRecord> {
+function latestInstallationBySite(installations: readonly InstallationRecord[]): Map<string, InstallationRecord> {
   const out = new Map<string, InstallationRecord>();
   for (const i of installations) {
     if (i.deletedAtMs !== null) continue;
@@ -34,7 +34,7 @@ export function latestInstallationBySite(installations: readonly InstallationRec
   return out;
 }
 
-export function siteFeature(s: SiteRecord, inst: InstallationRecord | undefined, reflector: ReflectorRecord | undefined): PointFeature {
+function siteFeature(s: SiteRecord, inst: InstallationRecord | undefined, reflector: ReflectorRecord | undefined): PointFeature {
   return {
     type: 'Feature',
     id: s.id,
@@ -67,7 +67,7 @@ export function siteFeature(s: SiteRecord, inst: InstallationRecord | undefined,
   };
 }
 
-export function sitesToGeoJson(
+function sitesToGeoJson(
   sites: readonly SiteRecord[],
   installations: readonly InstallationRecord[],
   reflectors: ReadonlyMap<string, ReflectorRecord>,

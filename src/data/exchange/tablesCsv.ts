@@ -32,7 +32,7 @@ interface Lookups {
   reflectors: ReadonlyMap<string, ReflectorRecord>;
 }
 
-export function installationsToCsv(rows: readonly InstallationRecord[], l: Lookups): string {
+function installationsToCsv(rows: readonly InstallationRecord[], l: Lookups): string {
   return toCsv(
     INSTALLATION_COLUMNS,
     rows.map((i): CsvValue[] => [
@@ -44,7 +44,7 @@ export function installationsToCsv(rows: readonly InstallationRecord[], l: Looku
   );
 }
 
-export function inspectionsToCsv(rows: readonly InspectionRecord[], l: Lookups): string {
+function inspectionsToCsv(rows: readonly InspectionRecord[], l: Lookups): string {
   return toCsv(
     INSPECTION_COLUMNS,
     rows.map((x): CsvValue[] => [
@@ -56,7 +56,7 @@ export function inspectionsToCsv(rows: readonly InspectionRecord[], l: Lookups):
   );
 }
 
-export function sitesToCsv(rows: readonly SiteRecord[]): string {
+function sitesToCsv(rows: readonly SiteRecord[]): string {
   return toCsv(
     SITE_COLUMNS,
     rows.map((s): CsvValue[] => [

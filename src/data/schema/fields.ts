@@ -80,9 +80,7 @@ export function uuid(label: string) {
 }
 
 // Control characters other than tab/newline/carriage return make exports and screens misbehave.
-// eslint-disable-next-line no-control-regex
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F]/;
-// eslint-disable-next-line no-control-regex
 const LINE_BREAK_OR_CONTROL = /[\u0000-\u001F\u007F]/;
 
 /** Single-line text (codes, names, labels). */

@@ -1,7 +1,7 @@
 /** Validation entry points used by the repositories, backup restore, merge and import. */
 import * as v from 'valibot';
 import { ValidationError, type Issue } from '../errors.ts';
-import type { EntityFieldsByTable, EntityRecord, EntityTable, RecordMeta } from '../types.ts';
+import type { EntityFieldsByTable, EntityTable } from '../types.ts';
 import { FIELD_SCHEMAS, META_KEYS, recordMetaSchema } from './records.ts';
 import { toIssues } from './fields.ts';
 
@@ -47,11 +47,4 @@ export function rowIssues(table: EntityTable, row: unknown, prefix: string): Iss
   const m = v.safeParse(recordMetaSchema, meta);
   const issues = m.success ? [] : toIssues(m.issues, prefix);
   return issues.concat(fieldIssues(table, fields, prefix));
-}
-
-/** A whole row, validated; the caller has already checked it with rowIssues. */
-export function asRecord<T extends EntityTable>(table: T, row: Record<string, unknown>): EntityRecord<T> {
-  const { meta, fields } = splitRow(row);
-  const m = v.parse(recordMetaSchema, meta) as RecordMeta;
-  return { ...parseFields(table, fields), ...m } as EntityRecord<T>;
 }

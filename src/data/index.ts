@@ -1,0 +1,81 @@
+/**
+ * The data layer's public API for the UI (documented in README.md beside this file).
+ * Screens import from here; they never import Dexie.
+ */
+export { openGlintmarkDb, CURRENT_SCHEMA_VERSION, type GlintmarkDb } from './db.ts';
+export * from './types.ts';
+export * from './errors.ts';
+
+export type { WriteContext } from './repo/context.ts';
+export type { EditContext, EntityRepo, ListOptions } from './repo/entity.ts';
+export { siteRepo } from './repo/sites.ts';
+export { geometryRepo, inspectionRepo, installationRepo, reflectorRepo } from './repo/entities.ts';
+export { history, versionAt } from './repo/revisions.ts';
+export {
+  addPhoto,
+  getPhoto,
+  listPhotos,
+  softDeletePhoto,
+  undeletePhoto,
+  DEFAULT_MAX_PHOTO_BYTES,
+  SUGGESTED_PHOTO_ROLES,
+  type AddPhotoOptions,
+  type PhotoOwner,
+} from './repo/photos.ts';
+export { clearDraft, loadDraft, saveDraft, type Draft } from './repo/drafts.ts';
+export { getMeta, setMeta, type MetaKey } from './repo/meta.ts';
+export { listConflicts, resolveConflict } from './repo/conflicts.ts';
+
+export {
+  requestPersistentStorage,
+  storageEstimate,
+  withReopen,
+  STORAGE_WARN_FRACTION,
+  type PersistResult,
+  type StorageEstimate,
+  type StorageManagerLike,
+} from './durability.ts';
+export {
+  backupToJson,
+  exportBackup,
+  recordBackupSaved,
+  restoreBackup,
+  validateBackup,
+  BACKUP_FORMAT,
+  BACKUP_FORMAT_VERSION,
+  type BackupDocument,
+  type ExportOptions,
+  type RestoreOptions,
+  type TableCounts,
+} from './backup.ts';
+export { mergeBackup, type MergeConflict, type MergeOptions, type MergeReport, type TableMergeReport } from './merge.ts';
+export { removeDemoData, type DemoRemovalReport } from './demo.ts';
+
+export { exportSitesGeoJson, type PointFeature, type SitesFeatureCollection } from './exchange/geojson.ts';
+export { exportInspectionsCsv, exportInstallationsCsv, exportSitesCsv, INSPECTION_COLUMNS, INSTALLATION_COLUMNS, SITE_COLUMNS } from './exchange/tablesCsv.ts';
+export {
+  commitSiteImport,
+  previewSiteImport,
+  type ImportRejection,
+  type SiteDraft,
+  type SiteImportKind,
+  type SiteImportPreview,
+} from './exchange/siteImport.ts';
+
+export { querySiteDetail, querySiteListSources, type SiteDetail } from './queries.ts';
+export { filterAndSortSites, foldForSearch, haversineDistanceM, type Here, type SiteListQuery, type SiteListRow, type SiteListSource, type SiteSort } from './siteList.ts';
+export {
+  getAppDb,
+  GlintmarkDbContext,
+  useGeometries,
+  useGlintmarkDb,
+  useHistory,
+  useInspection,
+  useInstallation,
+  useOpenConflicts,
+  usePhotos,
+  useReflectors,
+  useSite,
+  useSiteDetail,
+  useSites,
+} from './hooks.ts';
