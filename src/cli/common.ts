@@ -54,16 +54,5 @@ export function parseLatLon(label: string, s: string): { latDeg: number; lonDeg:
   return { latDeg: parseNumber(`${label} latitude`, parts[0]), lonDeg: parseNumber(`${label} longitude`, parts[1]) };
 }
 
-/** Strict ISO 8601 UTC-or-offset date/time → ms since epoch. Rejects anything Date.parse would guess at. */
-export function parseIsoMs(label: string, s: string): number {
-  const re = /^\d{4}-\d{2}-\d{2}(T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})?)?$/;
-  if (!re.test(s.trim())) throw new UsageError(`${label} must be an ISO 8601 date or time such as 2027-03-14T09:30:00Z, got "${s}"`);
-  const t = s.trim();
-  const withZone = t.length === 10 ? `${t}T00:00:00Z` : /Z|[+-]\d{2}:\d{2}$/.test(t) ? t : `${t}Z`;
-  const ms = Date.parse(withZone);
-  if (!Number.isFinite(ms)) throw new UsageError(`${label} is not a real date: "${s}"`);
-  return ms;
-}
-
 /** JSON-safe number: ±Infinity/NaN become null (JSON cannot hold them). */
 export const jsonNumber = (x: number): number | null => (Number.isFinite(x) ? x : null);

@@ -1,6 +1,5 @@
 import { describe, expect, it } from 'vitest';
 import { declination } from '../../src/core/magnetic/declination.ts';
-import { parseIsoInstantMs } from '../../src/cli/commands/declination.ts';
 import { runCli } from './run.ts';
 
 async function expectBadInput(argv: string[], message: RegExp) {
@@ -47,21 +46,5 @@ describe('glintmark declination', () => {
     await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2027-01-01', '--year', '2027'], /unknown option --year/);
     await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', 'July 2 2027'], /--date must be an ISO 8601/);
     await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2027-02-29'], /not a real date/);
-  });
-});
-
-describe('parseIsoInstantMs (strict ISO 8601)', () => {
-  it('parses dates, date-times with Z and offsets, fractions', () => {
-    expect(parseIsoInstantMs('--t', '2027-07-02')).toBe(Date.UTC(2027, 6, 2));
-    expect(parseIsoInstantMs('--t', '2027-07-02T12:00Z')).toBe(Date.UTC(2027, 6, 2, 12));
-    expect(parseIsoInstantMs('--t', '2027-07-02T14:30:15.25+02:30')).toBe(Date.UTC(2027, 6, 2, 12, 0, 15, 250));
-    expect(parseIsoInstantMs('--t', '2028-02-29T00:00:00-05:00')).toBe(Date.UTC(2028, 1, 29, 5));
-  });
-
-  it('rejects what Date.parse would guess at', () => {
-    for (const s of ['2027-02-30', '2027-13-01', '2027-07-02T24:00Z', '2027-07-02T12:60Z', '2027-07-02T12:00:60Z', '2027-07-02T12:00', '2027-7-2', '02/07/2027', '2027-07-02T12:00+25:00', '', 'now']) {
-      expect(() => parseIsoInstantMs('--t', s), s).toThrow(/--t/);
-    }
-    expect(() => parseIsoInstantMs('--t', '2027-07-02', { requireTime: true })).toThrow(/needs a time of day/);
   });
 });

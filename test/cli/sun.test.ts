@@ -37,7 +37,7 @@ describe('glintmark sun', () => {
     await expectBadInput(['sun', '--lat', '-91', '--lon', '0', '--time', '2027-06-21T12:00Z'], /--lat must be in \[-90, 90\]°/);
     await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00Z', '--refraction', 'no'], /unknown option --refraction/);
     await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', 'noon'], /--time must be an ISO 8601/);
-    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00'], /--time must be an ISO 8601/);
+    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00'], /--time "2027-06-21T12:00" has no time zone; add Z for UTC/);
     await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21'], /needs a time of day/);
   });
 });

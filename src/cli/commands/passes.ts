@@ -5,7 +5,7 @@
 import { readFileSync } from 'node:fs';
 import { LOOK_SIDES } from '../../core/geometry/pointing.ts';
 import { findPasses, DEFAULT_INCIDENCE_MAX_DEG, DEFAULT_INCIDENCE_MIN_DEG, type Pass } from '../../core/orbit/passes.ts';
-import { parseIsoUtcMs } from '../../core/orbit/time.ts';
+import { parseIsoUtcMs } from '../../core/time.ts';
 import { formatTleError, parseTle } from '../../core/orbit/tle.ts';
 import { groupTracks, type Track } from '../../core/orbit/tracks.ts';
 import { requireIncidenceDeg, requireInRange, requireLatDeg, requireLonDeg, requireOneOf } from '../../core/validate.ts';

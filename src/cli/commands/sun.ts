@@ -2,7 +2,7 @@ import { sunPosition } from '../../core/sun/sunPosition.ts';
 import { requireInRange, requireLatDeg, requireLonDeg } from '../../core/validate.ts';
 import type { Command } from '../command.ts';
 import { fmt, keyValueTable } from '../output.ts';
-import { parseIsoInstantMs } from './declination.ts';
+import { parseIsoUtcMs } from '../../core/time.ts';
 
 export const command: Command = {
   name: 'sun',
@@ -13,7 +13,7 @@ export const command: Command = {
     const latDeg = requireLatDeg('--lat', args.number('lat'));
     const lonDeg = requireLonDeg('--lon', args.number('lon'));
     const heightM = requireInRange('--height', args.optNumber('height') ?? 0, { min: -500, max: 100_000, unit: 'm' });
-    const timeMs = parseIsoInstantMs('--time', args.string('time'), { requireTime: true });
+    const timeMs = parseIsoUtcMs(args.string('time'), '--time', { requireTime: true });
     args.assertNoUnknown();
 
     const p = sunPosition({ latDeg, lonDeg, heightM, timeMs });

@@ -7,7 +7,7 @@ import type { ReflectorOrientation } from '../../../core/geometry/orientation.ts
 import type { LookSide } from '../../../core/geometry/pointing.ts';
 import { findPasses, type Pass, type PassDirection } from '../../../core/orbit/passes.ts';
 import { tleAgeWarning, tleLabel } from '../../../core/orbit/tle.ts';
-import { parseIsoUtcMs } from '../../../core/orbit/time.ts';
+import { parseIsoUtcMs } from '../../../core/time.ts';
 import { groupTracks, type Track } from '../../../core/orbit/tracks.ts';
 import type { TrihedralShapeName } from '../../../core/radar/shapes.ts';
 import { misalignment } from '../../../core/reflector/misalignment.ts';

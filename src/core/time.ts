@@ -10,11 +10,14 @@ const ISO =
   /^(\d{4})-(\d{2})-(\d{2})(?:T(\d{2}):(\d{2})(?::(\d{2})(?:\.(\d{1,9}))?)?(Z|[+-]\d{2}:\d{2})?)?$/;
 
 /** ms since 1970 UTC for a strict ISO 8601 date or date-time; RangeError naming `name` otherwise. */
-export function parseIsoUtcMs(text: string, name = 'time'): number {
+export function parseIsoUtcMs(text: string, name = 'time', opts: { requireTime?: boolean } = {}): number {
   const m = ISO.exec(text.trim());
   const example = 'e.g. 2026-12-01 or 2026-12-01T06:00Z';
   if (!m) throw new RangeError(`${name} must be an ISO 8601 date or time (${example}), got "${text}"`);
   const [, ys, mos, ds, hs, mis, ss, frac, zone] = m;
+  if (opts.requireTime && hs === undefined) {
+    throw new RangeError(`${name} needs a time of day and zone, e.g. 2026-12-01T06:00Z; got "${text}"`);
+  }
   if (hs !== undefined && zone === undefined) {
     throw new RangeError(`${name} "${text}" has no time zone; add Z for UTC or an offset like +02:00`);
   }

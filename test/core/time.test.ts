@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { parseIsoUtcMs } from '../../../src/core/orbit/time.ts';
+import { parseIsoUtcMs } from '../../src/core/time.ts';
 
 describe('parseIsoUtcMs', () => {
   it.each([
@@ -35,5 +35,20 @@ describe('parseIsoUtcMs', () => {
 
   it('rejects an impossible offset', () => {
     expect(() => parseIsoUtcMs('2026-12-01T06:30+24:00')).toThrow(/impossible offset/);
+  });
+});
+
+describe('parseIsoUtcMs: calendar and zone checks', () => {
+  it('reads offsets with fractions and leap days', () => {
+    expect(parseIsoUtcMs('2027-07-02T14:30:15.25+02:30')).toBe(Date.UTC(2027, 6, 2, 12, 0, 15, 250));
+    expect(parseIsoUtcMs('2028-02-29T00:00:00-05:00')).toBe(Date.UTC(2028, 1, 29, 5));
+  });
+  it('rejects what Date.parse would guess at, naming the option', () => {
+    for (const s of ['2027-02-30', '2027-13-01', '2027-07-02T24:00Z', '2027-07-02T12:60Z', '2027-07-02T12:00:60Z', '2027-07-02T12:00', '2027-7-2', '02/07/2027', '2027-07-02T12:00+25:00', '', 'now']) {
+      expect(() => parseIsoUtcMs(s, '--t'), s).toThrow(/--t/);
+    }
+  });
+  it('can require a time of day', () => {
+    expect(() => parseIsoUtcMs('2027-07-02', '--time', { requireTime: true })).toThrow(/--time needs a time of day/);
   });
 });
