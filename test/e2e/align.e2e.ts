@@ -109,7 +109,9 @@ describe('Align screen with an emulated compass', () => {
     await page.locator('[data-testid="capture"]').click();
     await expect.poll(() => text(page, 'capture-result'), POLL).toMatch(/Compass/);
     expect(await text(page, 'capture-result')).toContain(`azimuth ${TARGET.azimuthDeg.toFixed(1)}° true`);
+    await page.locator('[data-testid="capture-result"]').scrollIntoViewIfNeeded();
     await screenshot(page, 'align-captured');
+    await page.locator('[data-testid="align-status"]').scrollIntoViewIfNeeded();
 
     // 3° clockwise of the target: the plate must turn back anticlockwise, and the error is +3.0°.
     await setOrientation(cdp, 'absolute-orientation', plateQuaternion({ ...TARGET, azimuthDeg: TARGET.azimuthDeg + 3 }));
@@ -156,7 +158,9 @@ describe('Align screen without a compass', () => {
     await page.locator('[data-testid="sun-compute"]').click();
     await expect.poll(() => text(page, 'sun-layout'), POLL).toMatch(/Computed at 10:0\d:\d\d UTC/);
     expect(await text(page, 'sun-layout')).toMatch(/about ¼° a minute/);
+    await page.locator('[data-testid="sun-layout"]').scrollIntoViewIfNeeded();
     await screenshot(page, 'align-sun-layout');
+    await page.locator('[data-testid="align-status"]').scrollIntoViewIfNeeded();
 
     await setOrientation(cdp, 'relative-orientation', quaternionFromW3c(0, 85, 0));
     await expect.poll(() => text(page, 'align-status'), POLL).toMatch(/Cannot measure/);

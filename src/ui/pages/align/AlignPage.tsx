@@ -67,9 +67,8 @@ export function AlignPage() {
         </IonToolbar>
       </IonHeader>
       <IonContent className="ion-padding">
-        <main>
+        <main className="gm-align-page">
           <h1 className="gm-label">Align the reflector</h1>
-          <p className="gm-note">Lay the phone screen-up on the base plate, its top edge pointing out of the open side along the bisector.</p>
           <TargetCard target={wf.target} />
           <StatusBanner view={view} />
           <p className={status.kind === 'absolute' ? 'gm-okt' : 'gm-warn'} data-testid="compass-status">
@@ -82,6 +81,7 @@ export function AlignPage() {
             </button>
           ) : null}
           <LiveCards view={view} steadiness={snap.steadiness} lastReadingAgeS={snap.lastReadingAgeS} />
+          <p className="gm-note">Lay the phone screen-up on the base plate, its top edge pointing out of the open side along the bisector.</p>
           <p className={decl.ok ? 'gm-note' : 'gm-warn'} data-testid="declination">
             {decl.ok ? decl.text : decl.message}
           </p>

@@ -76,9 +76,6 @@ export function AzimuthMethods(props: AzimuthMethodsProps) {
               The shadow drifts about ¼° a minute (here now {fmtNum(Math.abs(sun.view.rateDegPerMin), 2)}° a minute): mark the shadow tip at once, or recompute.
             </p>
             <Steps steps={sun.view.steps} testId="sun-steps" />
-            <p className="gm-note">
-              Along {fmtNum(sun.view.layout.alongM, 2)} m, then {fmtNum(sun.view.layout.offsetM, 2)} m to the {sun.view.layout.side}.
-            </p>
             <button type="button" className="gm-btn" onClick={() => target !== null && props.onRecord({ method: 'sun-shadow', azimuthDeg: target })} data-testid="record-sun">
               Plate is on this line
             </button>

@@ -6,7 +6,7 @@ import type { Reflector } from '../../../core/reflector/trihedral.ts';
 import { NumberField, Segmented } from '../../components/fields.tsx';
 import { fmtNum } from '../../format.ts';
 import { workflow, type Capture } from '../../state/workflow.ts';
-import { buildCapture, buildManualCapture, METHOD_LABEL, type CaptureRequest, type ManualForm } from './captureAlign.ts';
+import { buildCapture, buildManualCapture, METHOD_LABEL, METHOD_SHORT, type CaptureRequest, type ManualForm } from './captureAlign.ts';
 import type { DeclinationView, PassItem } from './computeAlign.ts';
 import type { LiveAlignment } from './liveAlign.ts';
 
@@ -78,7 +78,7 @@ export function CaptureCard(props: CaptureCardProps) {
       <Segmented
         label="Method that set the azimuth"
         value={method}
-        options={(['compass', 'sun-shadow', 'reference-bearing'] as const).map((m) => ({ value: m, label: METHOD_LABEL[m] }))}
+        options={(['compass', 'sun-shadow', 'reference-bearing'] as const).map((m) => ({ value: m, label: METHOD_SHORT[m] }))}
         onChange={setMethod}
         testId="capture-method"
       />

@@ -38,6 +38,13 @@ export function StatusBanner(props: { view: AlignView }) {
 
 function Sub(props: { axis: 'azimuth' | 'tilt' | 'roll'; g: AxisGuidance<number | null> | undefined }) {
   if (!props.g) return null;
+  if (props.g.errorDeg === null) {
+    return (
+      <span className="gm-align-instr" data-testid={`instruction-${props.axis}`}>
+        not measured: set it by sun shadow or a reference bearing (below)
+      </span>
+    );
+  }
   return (
     <>
       <span data-testid={`error-${props.axis}`}>{props.g.errorDeg === null ? 'error —' : `error ${signedDeg(props.g.errorDeg)}`}</span>
@@ -57,7 +64,7 @@ export function LiveCards(props: { view: AlignView; steadiness: SteadinessStatus
   const { view } = props;
   const m = view.measured;
   const g = view.guidance;
-  const tone = (a: AxisGuidance<number | null> | undefined) => (a ? (a.within ? 'ok' : 'bad') : undefined);
+  const tone = (a: AxisGuidance<number | null> | undefined) => (a && a.errorDeg !== null ? (a.within ? 'ok' : 'bad') : undefined);
   const std = props.steadiness.std;
   return (
     <>
@@ -66,7 +73,7 @@ export function LiveCards(props: { view: AlignView; steadiness: SteadinessStatus
         <BigNumber label="Tilt (open side up +)" value={m ? fmtNum(m.tiltDeg, 1) : '—'} unit="°" testId="live-tilt" tone={tone(g?.tilt)} sub={<Sub axis="tilt" g={g?.tilt} />} />
         <BigNumber label="Roll (right side up +)" value={m ? fmtNum(m.rollDeg, 1) : '—'} unit="°" testId="live-roll" tone={tone(g?.roll)} sub={<Sub axis="roll" g={g?.roll} />} />
       </section>
-      {view.azimuthNote ? (
+      {view.azimuthNote && m?.azimuthMagDeg !== null ? (
         <p className="gm-warn" data-testid="azimuth-note">
           {view.azimuthNote}
         </p>
@@ -83,7 +90,7 @@ export function LiveCards(props: { view: AlignView; steadiness: SteadinessStatus
 }
 
 const PRESETS = [
-  { value: 'calibration', label: 'Calibration (tight)' },
+  { value: 'calibration', label: 'Calibration' },
   { value: 'monitoring', label: 'Monitoring' },
   { value: 'custom', label: 'Custom' },
 ] as const;

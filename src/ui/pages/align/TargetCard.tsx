@@ -1,8 +1,8 @@
-/** The aim to align to: from the Plan screen, or typed here when there is none. */
+/** The aim to align to: from the Plan screen, or typed here when there is none. Compact, so the live values stay in view. */
 import { useState } from 'react';
 import { Link } from 'react-router-dom';
 import { requireInRange } from '../../../core/validate.ts';
-import { BigNumber, NumberField, parseField } from '../../components/fields.tsx';
+import { NumberField, parseField } from '../../components/fields.tsx';
 import { fmtNum } from '../../format.ts';
 import { workflow } from '../../state/workflow.ts';
 import type { AlignTarget } from './computeAlign.ts';
@@ -26,24 +26,23 @@ export function TargetCard(props: { target: AlignTarget | null }) {
   };
 
   return (
-    <section className="gm-section" aria-labelledby="target-h">
-      <h2 id="target-h">Target</h2>
+    <section aria-label="Target">
       {t ? (
-        <div className="gm-cards" data-testid="target">
-          <BigNumber label="Azimuth (true)" value={fmtNum(t.azimuthDeg, 1)} unit="°" testId="target-azimuth" />
-          <BigNumber label="Tilt (open side up +)" value={fmtNum(t.tiltDeg, 1)} unit="°" testId="target-tilt" />
-          <BigNumber label="Roll (right side up +)" value={fmtNum(t.rollDeg, 1)} unit="°" testId="target-roll" />
-        </div>
+        <p className="gm-align-target" data-testid="target">
+          <span className="gm-label">Target</span> azimuth <b data-testid="target-azimuth">{fmtNum(t.azimuthDeg, 1)}°</b> true · tilt{' '}
+          <b data-testid="target-tilt">{fmtNum(t.tiltDeg, 1)}°</b> · roll <b data-testid="target-roll">{fmtNum(t.rollDeg, 1)}°</b>{' '}
+          {!editing ? (
+            <button type="button" className="gm-btn" onClick={() => setEditing(true)} data-testid="edit-target">
+              Change
+            </button>
+          ) : null}
+        </p>
       ) : (
         <p className="gm-warn" data-testid="plan-first">
           No aim yet. <Link to="/plan">Plan an aim first</Link>, or type the target below.
         </p>
       )}
-      {t && !editing ? (
-        <button type="button" className="gm-btn" onClick={() => setEditing(true)} data-testid="edit-target">
-          Type a different target
-        </button>
-      ) : (
+      {!t || editing ? (
         <div className="gm-card">
           <div className="gm-row">
             <NumberField label="Target azimuth" unit="° true" value={az} onChange={setAz} error={typed ? pAz.error : undefined} testId="target-azimuth-input" />
@@ -61,7 +60,7 @@ export function TargetCard(props: { target: AlignTarget | null }) {
             ) : null}
           </div>
         </div>
-      )}
+      ) : null}
     </section>
   );
 }

@@ -23,6 +23,14 @@ export const METHOD_LABEL: Record<CaptureMethod, string> = {
   'other-instrument': 'Other instrument (typed)',
 };
 
+/** Short names for the method buttons. */
+export const METHOD_SHORT: Record<CaptureMethod, string> = {
+  compass: 'Compass',
+  'sun-shadow': 'Sun shadow',
+  'reference-bearing': 'Reference',
+  'other-instrument': 'Other instrument',
+};
+
 export interface MethodCheckView {
   comparison: MethodComparison | null;
   /** The compass may not set the stored azimuth. */

@@ -233,5 +233,9 @@ export function positionFrom(
   return null;
 }
 
-/** A signed angle for display: "+1.2°", "−0.4°". */
-export const signedDeg = (x: number, digits = 1) => `${x > 0 ? '+' : x < 0 ? '\u2212' : '\u00b1'}${Math.abs(x).toFixed(digits)}\u00b0`;
+/** A signed angle for display: "+1.2°", "−0.4°", and "±0.0°" for anything that rounds to zero. */
+export function signedDeg(x: number, digits = 1): string {
+  const text = Math.abs(x).toFixed(digits);
+  const sign = Number(text) === 0 ? '\u00b1' : x > 0 ? '+' : '\u2212';
+  return `${sign}${text}\u00b0`;
+}
