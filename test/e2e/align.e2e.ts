@@ -196,4 +196,25 @@ describe('Align screen without a compass', () => {
     expect(errors).toEqual([]);
     await ctx.close();
   });
+
+  it('outside the magnetic model dates says so and shows no true azimuth', async () => {
+    const ctx = await phoneContext(browser);
+    await ctx.grantPermissions(['geolocation', 'accelerometer', 'gyroscope', 'magnetometer'], { origin: BASE_URL });
+    const page = await ctx.newPage();
+    const errors: string[] = [];
+    page.on('pageerror', (e) => errors.push(e.message));
+    await page.clock.install({ time: new Date('2031-03-01T10:00:00Z') });
+    const cdp = await ctx.newCDPSession(page);
+    await cdp.send('Emulation.setGeolocationOverride', SITE);
+    await cdp.send('Emulation.setSensorOverrideEnabled', { enabled: true, type: 'absolute-orientation' });
+    await setOrientation(cdp, 'absolute-orientation', quaternionFromW3c(0, 10, 0));
+    await planAndAlign(page);
+    await expect.poll(() => text(page, 'declination'), POLL).toMatch(/WMM2025 is valid from 2025-01-01 to 2030-01-01/);
+    expect(await text(page, 'compass-status')).toMatch(/Compass working/);
+    expect(await text(page, 'live-azimuth')).toContain('—');
+    expect(await text(page, 'azimuth-note')).toMatch(/No true azimuth/);
+    await screenshot(page, 'align-outside-model-dates');
+    expect(errors).toEqual([]);
+    await ctx.close();
+  });
 });
