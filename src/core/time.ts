@@ -39,3 +39,6 @@ export function parseIsoUtcMs(text: string, name = 'time', opts: { requireTime?:
   utc.setUTCHours(h, mi, s, 0);
   return utc.getTime() + ms - offsetMin * 60_000;
 }
+
+/** ISO 8601 UTC text (`…Z`, milliseconds) for a time in ms since 1970, or null for a missing time. */
+export const isoUtc = (ms: number | null | undefined): string | null => (ms === null || ms === undefined ? null : new Date(ms).toISOString());

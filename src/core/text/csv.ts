@@ -86,14 +86,19 @@ export function parseCsv(text: string): CsvRecord[] {
   return out;
 }
 
-/** Quote a field only when RFC 4180 requires it. */
-export function csvField(v: string | number | boolean | null | undefined): string {
+export type CsvValue = string | number | boolean | null | undefined;
+
+/** Quote a field only when RFC 4180 requires it; numbers in JavaScript's shortest round-trip form, null as empty. */
+export function csvField(v: CsvValue): string {
   if (v === null || v === undefined) return '';
   const s = String(v);
   return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
 /** Format rows as RFC 4180 CSV: CRLF line breaks, trailing CRLF. */
-export function formatCsv(rows: readonly (readonly (string | number | boolean | null | undefined)[])[]): string {
+export function formatCsv(rows: readonly (readonly CsvValue[])[]): string {
   return rows.map((r) => r.map(csvField).join(',')).join('\r\n') + '\r\n';
 }
+
+/** A header row plus data rows, as RFC 4180 CSV. */
+export const toCsv = (header: readonly string[], rows: readonly (readonly CsvValue[])[]): string => formatCsv([header, ...rows]);

@@ -7,7 +7,7 @@
  */
 import type { GlintmarkDb } from '../db.ts';
 import type { InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';
-import { isoUtc } from './csv.ts';
+import { isoUtc } from '../../core/time.ts';
 
 export interface PointFeature {
   type: 'Feature';

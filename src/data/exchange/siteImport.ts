@@ -17,7 +17,7 @@ import { WRITE_SCOPE } from '../repo/entity.ts';
 import type { WriteContext } from '../repo/context.ts';
 import { fieldIssues } from '../schema/validate.ts';
 import type { SiteFields, SiteRecord } from '../types.ts';
-import { CsvSyntaxError, parseCsv } from './csv.ts';
+import { CsvSyntaxError, parseCsv } from '../../core/text/csv.ts';
 
 export type SiteImportKind = 'csv' | 'geojson';
 

@@ -6,7 +6,8 @@
  */
 import type { GlintmarkDb } from '../db.ts';
 import type { InspectionRecord, InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';
-import { isoUtc, toCsv, type CsvValue } from './csv.ts';
+import { toCsv, type CsvValue } from '../../core/text/csv.ts';
+import { isoUtc } from '../../core/time.ts';
 
 export const INSTALLATION_COLUMNS = [
   'installation_id', 'site_id', 'site_code', 'reflector_id', 'reflector_label', 'installed_at_utc',

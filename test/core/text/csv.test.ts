@@ -1,6 +1,6 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { CsvSyntaxError, formatCsv, parseCsv } from '../../../src/core/text/csv.ts';
+import { CsvSyntaxError, formatCsv, parseCsv, toCsv } from '../../../src/core/text/csv.ts';
 
 // Rules from RFC 4180 (Shafranovich 2005), §2 items 1–7.
 describe('RFC 4180 CSV', () => {
@@ -41,5 +41,20 @@ describe('RFC 4180 CSV', () => {
   });
   it('formats with CRLF and quotes only where needed', () => {
     expect(formatCsv([['a', 'b,c', 'd"e', 1.5, null]])).toBe('a,"b,c","d""e",1.5,\r\n');
+  });
+});
+
+describe('RFC 4180 CSV: more cases', () => {
+  it('keeps CR LF inside a quoted field and reports where each record starts', () => {
+    const text = 'code,notes\r\nMF-01,"first\r\nsecond"\r\nMF-02,"said ""ok"""\r\n\r\nMF-03,\r\n';
+    expect(parseCsv(text)).toEqual([
+      { line: 1, fields: ['code', 'notes'] },
+      { line: 2, fields: ['MF-01', 'first\r\nsecond'] },
+      { line: 4, fields: ['MF-02', 'said "ok"'] },
+      { line: 6, fields: ['MF-03', ''] },
+    ]);
+  });
+  it('quotes a bare CR and writes a header with toCsv', () => {
+    expect(toCsv(['a', 'b'], [['1', 'cr\rhere']])).toBe('a,b\r\n1,"cr\rhere"\r\n');
   });
 });

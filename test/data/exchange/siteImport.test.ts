@@ -61,7 +61,7 @@ describe('site import from CSV', () => {
     ]);
     expect((await previewSiteImport(db(), '{"type":"FeatureCollection"}', 'csv')).rejected[0].reason).toBe('not a CSV file: it looks like JSON (import it as GeoJSON)');
     expect((await previewSiteImport(db(), 'PK\u0003\u0004\u0000\u0000', 'csv')).rejected[0].reason).toBe('not a CSV file: it is not text');
-    expect((await previewSiteImport(db(), 'code,latitude\n"MF-01,52\n', 'csv')).rejected[0]).toEqual({ row: 2, reason: 'not a valid CSV file: line 2: a quoted field is never closed' });
+    expect((await previewSiteImport(db(), 'code,latitude\n"MF-01,52\n', 'csv')).rejected[0]).toEqual({ row: 2, reason: 'not a valid CSV file: line 2: a quoted field is never closed (the file may be cut short)' });
     expect((await previewSiteImport(db(), '', 'csv')).rejected[0].reason).toBe('the file is empty');
   });
 

@@ -1,6 +1,6 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
-import { parseCsv } from '../../../src/data/exchange/csv.ts';
+import { parseCsv } from '../../../src/core/text/csv.ts';
 import { exportInspectionsCsv, exportInstallationsCsv, INSPECTION_COLUMNS, INSTALLATION_COLUMNS } from '../../../src/data/exchange/tablesCsv.ts';
 import { installationRepo, reflectorRepo } from '../../../src/data/repo/entities.ts';
 import { siteRepo } from '../../../src/data/repo/sites.ts';
