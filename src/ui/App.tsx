@@ -20,6 +20,15 @@ const page = (load: () => Promise<Record<string, ComponentType>>, name: string) 
 const PassesPage = page(() => import('./pages/passes/PassesPage.tsx'), 'PassesPage');
 const AlignPage = page(() => import('./pages/align/AlignPage.tsx'), 'AlignPage');
 const LogbookPage = page(() => import('./pages/logbook/LogbookPage.tsx'), 'LogbookPage');
+const SitePage = page(() => import('./pages/logbook/SitePage.tsx'), 'SitePage');
+const InstallationFormPage = page(() => import('./pages/logbook/InstallationFormPage.tsx'), 'InstallationFormPage');
+const InspectionFormPage = page(() => import('./pages/logbook/InspectionFormPage.tsx'), 'InspectionFormPage');
+const SettingsPage = page(() => import('./pages/settings/SettingsPage.tsx'), 'SettingsPage');
+const lazyRoute = (C: ComponentType) => () => (
+  <Suspense fallback={<Loading />}>
+    <C />
+  </Suspense>
+);
 
 const Loading = () => <p className="ion-padding">Loading…</p>;
 
@@ -34,9 +43,15 @@ export function App() {
         <IonTabs>
           <IonRouterOutlet>
             <Route exact path="/plan" component={PlanPage} />
-            <Route exact path="/passes" render={() => <Suspense fallback={<Loading />}><PassesPage /></Suspense>} />
-            <Route exact path="/align" render={() => <Suspense fallback={<Loading />}><AlignPage /></Suspense>} />
-            <Route path="/logbook" render={() => <Suspense fallback={<Loading />}><LogbookPage /></Suspense>} />
+            <Route exact path="/passes" render={lazyRoute(PassesPage)} />
+            <Route exact path="/align" render={lazyRoute(AlignPage)} />
+            <Route exact path="/logbook" render={lazyRoute(LogbookPage)} />
+            <Route exact path="/logbook/site/:siteId" render={lazyRoute(SitePage)} />
+            <Route exact path="/logbook/new-installation" render={lazyRoute(InstallationFormPage)} />
+            <Route exact path="/logbook/installation/:installationId" render={lazyRoute(InstallationFormPage)} />
+            <Route exact path="/logbook/inspection/new/:reflectorId" render={lazyRoute(InspectionFormPage)} />
+            <Route exact path="/logbook/inspection/:inspectionId" render={lazyRoute(InspectionFormPage)} />
+            <Route exact path="/settings" render={lazyRoute(SettingsPage)} />
             <Route exact path="/">
               <Redirect to="/plan" />
             </Route>

@@ -20,7 +20,9 @@ export async function launch(): Promise<Browser> {
 /** A phone-sized context with geolocation granted for the preview origin. */
 export async function phoneContext(browser: Browser, opts: { geolocation?: boolean; acknowledgeSafety?: boolean } = {}): Promise<BrowserContext> {
   const ctx = await browser.newContext({ viewport: { width: 412, height: 915 }, deviceScaleFactor: 1, hasTouch: true, isMobile: false });
-  if (opts.geolocation !== false) await ctx.grantPermissions(['geolocation'], { origin: BASE_URL });
+  // Playwright refuses every permission not listed here, and Chromium then sends no orientation events at all.
+  const sensors = ['accelerometer', 'gyroscope', 'magnetometer'];
+  await ctx.grantPermissions(opts.geolocation !== false ? ['geolocation', ...sensors] : sensors, { origin: BASE_URL });
   if (opts.acknowledgeSafety !== false) {
     // The first-run safety panel is covered by its own test; other tests start as a crew that has read it.
     await ctx.addInitScript(() => {
