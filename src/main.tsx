@@ -1,6 +1,7 @@
 import { createRoot } from 'react-dom/client';
 import { App } from './ui/App.tsx';
 import { registerOfflineCache } from './ui/offline.ts';
+import { startApp } from './ui/startup.ts';
 
 registerOfflineCache();
-createRoot(document.getElementById('root')!).render(<App />);
+void startApp().finally(() => createRoot(document.getElementById('root')!).render(<App />));

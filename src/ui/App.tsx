@@ -9,6 +9,7 @@ import { IonApp, IonIcon, IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, Io
 import { IonReactRouter } from '@ionic/react-router';
 import { Redirect, Route } from 'react-router-dom';
 import { TABS } from './tabs.ts';
+import { DemoOffer } from './components/DemoOffer.tsx';
 import { FirstRunSafety } from './components/FirstRunSafety.tsx';
 import { applyTheme } from './state/theme.ts';
 import { PlanPage } from './pages/plan/PlanPage.tsx';
@@ -39,6 +40,7 @@ export function App() {
   return (
     <IonApp>
       <FirstRunSafety />
+      <DemoOffer />
       <IonReactRouter>
         <IonTabs>
           <IonRouterOutlet>

@@ -24,11 +24,11 @@ export async function phoneContext(browser: Browser, opts: { geolocation?: boole
   const sensors = ['accelerometer', 'gyroscope', 'magnetometer'];
   await ctx.grantPermissions(opts.geolocation !== false ? ['geolocation', ...sensors] : sensors, { origin: BASE_URL });
   if (opts.acknowledgeSafety !== false) {
-    // The first-run safety panel is covered by its own test; other tests start as a crew that has read it.
+    // The first-run panels (safety, demo offer) have their own tests; other tests start as a crew past them.
     await ctx.addInitScript(() => {
       const k = 'glintmark.settings.v1';
       const cur = JSON.parse(localStorage.getItem(k) ?? '{}');
-      if (!cur.safetyAcknowledgedAtMs) localStorage.setItem(k, JSON.stringify({ ...cur, safetyAcknowledgedAtMs: 1 }));
+      if (!cur.safetyAcknowledgedAtMs) localStorage.setItem(k, JSON.stringify({ ...cur, safetyAcknowledgedAtMs: 1, demoOfferedAtMs: cur.demoOfferedAtMs ?? 1 }));
     });
   }
   return ctx;

@@ -18,6 +18,8 @@ export interface Settings {
   methodToleranceDeg: number;
   crewName: string;
   safetyAcknowledgedAtMs: number | null;
+  /** When the first-run demo offer was answered (loaded or declined), so it is asked once. */
+  demoOfferedAtMs: number | null;
 }
 
 export const DEFAULT_SETTINGS: Settings = {
@@ -31,6 +33,7 @@ export const DEFAULT_SETTINGS: Settings = {
   methodToleranceDeg: 3,
   crewName: '',
   safetyAcknowledgedAtMs: null,
+  demoOfferedAtMs: null,
 };
 
 const KEY = 'glintmark.settings.v1';

@@ -1,0 +1,18 @@
+/** Work done once when the app starts: open the logbook, ask for persistent storage once, restore the task. */
+import { getAppDb, getMeta, requestPersistentStorage } from '../data/index.ts';
+import { persistWorkflow, restoreWorkflow } from './state/persistWorkflow.ts';
+
+export async function startApp(): Promise<void> {
+  const db = getAppDb();
+  try {
+    await restoreWorkflow(db);
+  } catch {
+    /* an unreadable draft is dropped; the records themselves are untouched */
+  }
+  persistWorkflow(db);
+  try {
+    if ((await getMeta(db, 'persistence')) === undefined) await requestPersistentStorage({ db });
+  } catch {
+    /* Settings shows the storage state and lets the crew ask again */
+  }
+}

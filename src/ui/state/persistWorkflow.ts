@@ -1,0 +1,36 @@
+/**
+ * Keep the crew's current task (site, geometries, aim, capture) in the logbook database's drafts, so a phone that
+ * kills the app in the background reopens where the crew left off.
+ */
+import { loadDraft, saveDraft, type GlintmarkDb } from '../../data/index.ts';
+import { DEFAULT_WORKFLOW, workflow, type Workflow } from './workflow.ts';
+
+const KEY = 'workflow';
+
+/** Shape check for a draft that may come from an older app version. */
+function isWorkflow(v: unknown): v is Workflow {
+  const w = v as Partial<Workflow> | null;
+  return !!w && Array.isArray(w.geometries) && typeof w.shape === 'string' && typeof w.edgeM === 'string' && typeof w.band === 'string';
+}
+
+export async function restoreWorkflow(db: GlintmarkDb): Promise<void> {
+  const d = await loadDraft<unknown>(db, KEY);
+  if (d && isWorkflow(d.value)) workflow.set({ ...DEFAULT_WORKFLOW, ...d.value });
+}
+
+/** Save on every change, at most every 300 ms. Returns an unsubscribe function. */
+export function persistWorkflow(db: GlintmarkDb): () => void {
+  let timer: ReturnType<typeof setTimeout> | undefined;
+  const unsub = workflow.subscribe(() => {
+    clearTimeout(timer);
+    timer = setTimeout(() => {
+      saveDraft(db, KEY, workflow.get()).catch(() => {
+        /* the draft is a convenience: a failed write leaves the previous draft in place */
+      });
+    }, 300);
+  });
+  return () => {
+    clearTimeout(timer);
+    unsub();
+  };
+}
