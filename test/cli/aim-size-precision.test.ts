@@ -1,17 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from './run.ts';
+import { expectUsageError, runCli } from './run.ts';
 
 type Obj = Record<string, number | string>;
-
-/** A bad-input run: status 2, nothing on stdout, exactly one line on stderr without a stack trace. */
-async function expectUsageError(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
 
 describe('glintmark aim', () => {
   it('prints the aim and peak RCS as one JSON document', async () => {

@@ -1,14 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from './run.ts';
-
-async function expectBadInput(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
+import { expectUsageError, runCli } from './run.ts';
 
 describe('glintmark bearing', () => {
   it('prints { azimuthDeg, distanceM }: Wellington → Salamanca (GeographicLib example; Karney 2013 method)', async () => {
@@ -28,11 +19,11 @@ describe('glintmark bearing', () => {
   });
 
   it('bad input: missing, non-numeric, malformed pair, out of range, unknown option, coincident points', async () => {
-    await expectBadInput(['bearing', '--from', '52,0'], /missing --to/);
-    await expectBadInput(['bearing', '--from', '52,zero', '--to', '53,0'], /--from longitude must be a number/);
-    await expectBadInput(['bearing', '--from', '52', '--to', '53,0'], /--from must be LAT,LON/);
-    await expectBadInput(['bearing', '--from', '52,0', '--to', '93,0'], /--to latitude must be in \[-90, 90\]°/);
-    await expectBadInput(['bearing', '--from', '52,0', '--to', '53,0', '--ellipsoid', 'GRS80'], /unknown option --ellipsoid/);
-    await expectBadInput(['bearing', '--from', '52,0', '--to', '52,0'], /apart to define an azimuth/);
+    await expectUsageError(['bearing', '--from', '52,0'], /missing --to/);
+    await expectUsageError(['bearing', '--from', '52,zero', '--to', '53,0'], /--from longitude must be a number/);
+    await expectUsageError(['bearing', '--from', '52', '--to', '53,0'], /--from must be LAT,LON/);
+    await expectUsageError(['bearing', '--from', '52,0', '--to', '93,0'], /--to latitude must be in \[-90, 90\]°/);
+    await expectUsageError(['bearing', '--from', '52,0', '--to', '53,0', '--ellipsoid', 'GRS80'], /unknown option --ellipsoid/);
+    await expectUsageError(['bearing', '--from', '52,0', '--to', '52,0'], /apart to define an azimuth/);
   });
 });

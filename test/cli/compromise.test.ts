@@ -1,18 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { compromiseOrientation } from '../../src/core/reflector/compromise.ts';
-import { runCli } from './run.ts';
+import { expectUsageError, runCli } from './run.ts';
 
 type Obj = Record<string, unknown>;
 const REFL = ['--edge', '0.9', '--wavelength', '0.0555'];
-
-async function expectUsageError(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
 
 describe('glintmark compromise', () => {
   it('prints the contract fields equal to the core result', async () => {

@@ -1,15 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { declination } from '../../src/core/magnetic/declination.ts';
-import { runCli } from './run.ts';
-
-async function expectBadInput(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
+import { expectUsageError, runCli } from './run.ts';
 
 describe('glintmark declination', () => {
   it('prints { declinationDeg, inclinationDeg, totalIntensityNt, model } equal to the core', async () => {
@@ -35,16 +26,16 @@ describe('glintmark declination', () => {
   });
 
   it('outside 2025–2030 → exit 2 with a clear message', async () => {
-    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2030-01-01'], /valid from 2025-01-01 to 2030-01-01/);
-    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2024-12-31T23:59:59Z'], /WMM2025/);
+    await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', '2030-01-01'], /valid from 2025-01-01 to 2030-01-01/);
+    await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', '2024-12-31T23:59:59Z'], /WMM2025/);
   });
 
   it('bad input: missing, non-numeric, out of range, unknown option, garbage or impossible dates', async () => {
-    await expectBadInput(['declination', '--lat', '10', '--date', '2027-01-01'], /missing --lon/);
-    await expectBadInput(['declination', '--lat', 'ten', '--lon', '10', '--date', '2027-01-01'], /--lat must be a number/);
-    await expectBadInput(['declination', '--lat', '95', '--lon', '10', '--date', '2027-01-01'], /--lat must be in \[-90, 90\]°/);
-    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2027-01-01', '--year', '2027'], /unknown option --year/);
-    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', 'July 2 2027'], /--date must be an ISO 8601/);
-    await expectBadInput(['declination', '--lat', '10', '--lon', '10', '--date', '2027-02-29'], /not a real date/);
+    await expectUsageError(['declination', '--lat', '10', '--date', '2027-01-01'], /missing --lon/);
+    await expectUsageError(['declination', '--lat', 'ten', '--lon', '10', '--date', '2027-01-01'], /--lat must be a number/);
+    await expectUsageError(['declination', '--lat', '95', '--lon', '10', '--date', '2027-01-01'], /--lat must be in \[-90, 90\]°/);
+    await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', '2027-01-01', '--year', '2027'], /unknown option --year/);
+    await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', 'July 2 2027'], /--date must be an ISO 8601/);
+    await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', '2027-02-29'], /not a real date/);
   });
 });

@@ -1,14 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { runCli } from './run.ts';
-
-async function expectBadInput(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
+import { expectUsageError, runCli } from './run.ts';
 
 describe('glintmark layout', () => {
   it('prints { turnDeg, alongM, offsetM, side }: reference north, target 030°, 10 m', async () => {
@@ -31,10 +22,10 @@ describe('glintmark layout', () => {
   });
 
   it('bad input: missing, non-numeric, out of range, unknown option', async () => {
-    await expectBadInput(['layout', '--reference-azimuth', '0', '--target-azimuth', '30'], /missing --baseline/);
-    await expectBadInput(['layout', '--reference-azimuth', 'N', '--target-azimuth', '30', '--baseline', '10'], /--reference-azimuth must be a number/);
-    await expectBadInput(['layout', '--reference-azimuth', '0', '--target-azimuth', '30', '--baseline', '0'], /--baseline must be greater than 0/);
-    await expectBadInput(['layout', '--reference-azimuth', '0', '--target-azimuth', '400', '--baseline', '10'], /--target-azimuth must be in \[-360, 360\]°/);
-    await expectBadInput(['layout', '--reference-azimuth', '0', '--target-azimuth', '30', '--baseline', '10', '--units', 'ft'], /unknown option --units/);
+    await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '30'], /missing --baseline/);
+    await expectUsageError(['layout', '--reference-azimuth', 'N', '--target-azimuth', '30', '--baseline', '10'], /--reference-azimuth must be a number/);
+    await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '30', '--baseline', '0'], /--baseline must be greater than 0/);
+    await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '400', '--baseline', '10'], /--target-azimuth must be in \[-360, 360\]°/);
+    await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '30', '--baseline', '10', '--units', 'ft'], /unknown option --units/);
   });
 });

@@ -1,20 +1,11 @@
 import { describe, expect, it } from 'vitest';
 import { aimForPass } from '../../src/core/geometry/pointing.ts';
 import { misalignment } from '../../src/core/reflector/misalignment.ts';
-import { runCli } from './run.ts';
+import { expectUsageError, runCli } from './run.ts';
 
 type Obj = Record<string, unknown>;
 const PASS = ['--incidence', '40', '--heading', '190'];
 const REFL = ['--edge', '0.9', '--wavelength', '0.0555'];
-
-async function expectUsageError(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
 
 describe('glintmark misalign', () => {
   it('prints { offBoresightDeg, rcsM2, rcsDbsm, lossDb } equal to the core (defaults: right look, roll 0, triangular)', async () => {

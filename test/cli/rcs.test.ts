@@ -2,20 +2,10 @@ import { describe, expect, it } from 'vitest';
 import { rcsInReflectorFrame } from '../../src/core/reflector/pattern.ts';
 import { peakRcsM2 } from '../../src/core/reflector/trihedral.ts';
 import { TRIHEDRAL_BORESIGHT_ELEVATION_DEG } from '../../src/core/units.ts';
-import { runCli } from './run.ts';
+import { expectUsageError, runCli } from './run.ts';
 
 type Obj = Record<string, unknown>;
 const BASE = ['rcs', '--shape', 'square', '--edge', '0.6', '--wavelength', '0.0555'];
-
-/** A bad-input run: status 2, nothing on stdout, exactly one line on stderr without a stack trace. */
-async function expectUsageError(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
 
 describe('glintmark rcs', () => {
   it('prints { rcsM2, rcsDbsm, lossDb } equal to the core pattern', async () => {

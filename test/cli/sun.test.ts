@@ -1,15 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { sunPosition } from '../../src/core/sun/sunPosition.ts';
-import { runCli } from './run.ts';
-
-async function expectBadInput(argv: string[], message: RegExp) {
-  const r = await runCli(argv);
-  expect(r.code).toBe(2);
-  expect(r.stdout).toBe('');
-  expect(r.stderr.trim().split('\n')).toHaveLength(1);
-  expect(r.stderr).not.toMatch(/\bat .*\.ts:\d+/);
-  expect(r.stderr).toMatch(message);
-}
+import { expectUsageError, runCli } from './run.ts';
 
 describe('glintmark sun', () => {
   it('prints { azimuthDeg, elevationDeg } equal to the core (apparent elevation)', async () => {
@@ -32,12 +23,12 @@ describe('glintmark sun', () => {
   });
 
   it('bad input: missing, non-numeric, out of range, unknown option, garbage or zone-less times', async () => {
-    await expectBadInput(['sun', '--lat', '52', '--lon', '0'], /missing --time/);
-    await expectBadInput(['sun', '--lat', '52', '--lon', 'east', '--time', '2027-06-21T12:00Z'], /--lon must be a number/);
-    await expectBadInput(['sun', '--lat', '-91', '--lon', '0', '--time', '2027-06-21T12:00Z'], /--lat must be in \[-90, 90\]°/);
-    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00Z', '--refraction', 'no'], /unknown option --refraction/);
-    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', 'noon'], /--time must be an ISO 8601/);
-    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00'], /--time "2027-06-21T12:00" has no time zone; add Z for UTC/);
-    await expectBadInput(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21'], /needs a time of day/);
+    await expectUsageError(['sun', '--lat', '52', '--lon', '0'], /missing --time/);
+    await expectUsageError(['sun', '--lat', '52', '--lon', 'east', '--time', '2027-06-21T12:00Z'], /--lon must be a number/);
+    await expectUsageError(['sun', '--lat', '-91', '--lon', '0', '--time', '2027-06-21T12:00Z'], /--lat must be in \[-90, 90\]°/);
+    await expectUsageError(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00Z', '--refraction', 'no'], /unknown option --refraction/);
+    await expectUsageError(['sun', '--lat', '52', '--lon', '0', '--time', 'noon'], /--time must be an ISO 8601/);
+    await expectUsageError(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00'], /--time "2027-06-21T12:00" has no time zone; add Z for UTC/);
+    await expectUsageError(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21'], /needs a time of day/);
   });
 });
