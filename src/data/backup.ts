@@ -7,7 +7,7 @@ import { base64ToBytes, blobToBase64 } from './base64.ts';
 import { CURRENT_SCHEMA_VERSION, type GlintmarkDb } from './db.ts';
 import { BackupError } from './errors.ts';
 import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, type BackupDocument, type BackupPhoto, type BackupTable } from './backup/format.ts';
-import { validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import { checkBackup, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
 import { setMeta } from './repo/meta.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
 
@@ -84,14 +84,16 @@ export function storedRows(doc: BackupDocument): Record<BackupTable, Record<stri
 /**
  * Validate the whole document, then write it in one transaction. Resolves with the row counts written;
  * rejects with BackupError (nothing written) or a Dexie error (nothing written).
+ * A backup without an `elements` list (written before schema 4) leaves the phone's element sets as they are.
  */
 export async function restoreBackup(db: GlintmarkDb, input: string | unknown, opts: RestoreOptions = {}): Promise<TableCounts> {
-  const doc = validateBackup(input, opts);
+  const { doc, hasElements } = checkBackup(input, opts);
   const rows = storedRows(doc);
+  const tables = BACKUP_TABLES.filter((t) => hasElements || t !== 'elements');
   return db.transaction('rw', [...BACKUP_TABLES, 'siteVisits'], async () => {
     if (!opts.replace) {
       let existing = 0;
-      for (const t of BACKUP_TABLES) if (t !== 'conflicts') existing += await db.table(t).count();
+      for (const t of tables) if (t !== 'conflicts') existing += await db.table(t).count();
       if (existing > 0) {
         throw new BackupError(
           'would-replace',
@@ -100,8 +102,8 @@ export async function restoreBackup(db: GlintmarkDb, input: string | unknown, op
         );
       }
     }
-    const counts = {} as TableCounts;
-    for (const t of BACKUP_TABLES) {
+    const counts = { elements: 0 } as TableCounts;
+    for (const t of tables) {
       await db.table(t).clear();
       await db.table(t).bulkAdd(rows[t]);
       counts[t] = rows[t].length;

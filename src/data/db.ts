@@ -10,6 +10,7 @@ import Dexie, { type Table, type Transaction } from 'dexie';
 import type {
   ConflictRecord,
   DraftRecord,
+  ElementSetRecord,
   GeometryRecord,
   InspectionRecord,
   InstallationRecord,
@@ -34,9 +35,10 @@ export type GlintmarkDb = Dexie & {
   meta: Table<MetaRecord, string>;
   conflicts: Table<ConflictRecord, string>;
   siteVisits: Table<SiteVisitsRecord, string>;
+  elements: Table<ElementSetRecord, string>;
 };
 
-export const CURRENT_SCHEMA_VERSION = 3;
+export const CURRENT_SCHEMA_VERSION = 4;
 
 /**
  * Version 1 (released 0.1). Sites had `gnssFix: boolean` instead of `positionSource`; installations had a
@@ -67,6 +69,16 @@ export const SCHEMA_V2 = {
  */
 export const SCHEMA_V3 = {
   siteVisits: 'siteId',
+} as const;
+
+/**
+ * Version 4: orbital element sets move from localStorage into the database (`elements`, indexed by catalogue
+ * number). A new, empty table: no upgrade; existing tables are unchanged. The one-time import of the sets an
+ * older app kept in localStorage is done by the Passes screen's store (repo/elements.ts `importElementSetsOnce`),
+ * because the browser's localStorage is not reachable from an IndexedDB upgrade transaction.
+ */
+export const SCHEMA_V4 = {
+  elements: 'id, catalogNumber',
 } as const;
 
 /** The declination model the 0.1 release used for every compass reading (its only model). */
@@ -113,10 +125,12 @@ export function openGlintmarkDb(name = 'glintmark'): GlintmarkDb {
   db.version(1).stores(SCHEMA_V1);
   // Version 2: never alter (it has an upgrade).
   db.version(2).stores(SCHEMA_V2).upgrade(upgradeV1ToV2);
-  // Version 3: never alter once shipped; add version 4 for further changes.
+  // Version 3: never alter (it has an upgrade).
   db.version(3)
     .stores(SCHEMA_V3)
     .upgrade((tx) => rebuildSiteVisits({ installations: tx.table('installations'), inspections: tx.table('inspections'), siteVisits: tx.table('siteVisits') }));
+  // Version 4: never alter once shipped; add version 5 for further changes.
+  db.version(4).stores(SCHEMA_V4);
   db.on('populate', (tx) => {
     tx.table('meta').add({ key: 'schema', value: { createdWithVersion: CURRENT_SCHEMA_VERSION, createdAtMs: Date.now() } });
   });

@@ -2,13 +2,14 @@
  * Remove demo records (demo: true) in one step, hard-deleting them with their photos, history and
  * conflicts in ONE transaction. Real records are never touched. A demo record that a real record still
  * points to (e.g. a real reflector placed on a demo site) is kept, and reported, so no reference dangles.
+ * Demo orbital element sets (`elements` with demo: true) are removed too; nothing points to an element set.
  */
 import type { GlintmarkDb } from './db.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
 import { ENTITY_TABLES, type EntityRecord, type EntityTable, type VersionedTable } from './types.ts';
 
 export interface DemoRemovalReport {
-  removed: Record<VersionedTable | 'revisions' | 'conflicts', number>;
+  removed: Record<VersionedTable | 'revisions' | 'conflicts' | 'elements', number>;
   /** Demo records kept because a kept record points to them. */
   kept: { table: EntityTable; id: string; reason: string }[];
 }
@@ -26,7 +27,7 @@ function parentsOf(table: EntityTable, row: AnyEntity): [EntityTable, string][] 
 }
 
 export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport> {
-  const scope = [...ENTITY_TABLES, 'photos', 'revisions', 'conflicts', 'siteVisits'];
+  const scope = [...ENTITY_TABLES, 'photos', 'revisions', 'conflicts', 'siteVisits', 'elements'];
   return db.transaction('rw', scope, async () => {
     const rows = new Map<EntityTable, AnyEntity[]>();
     for (const t of ENTITY_TABLES) rows.set(t, (await db.table(t).toArray()) as AnyEntity[]);
@@ -52,7 +53,7 @@ export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport
     }
 
     const report: DemoRemovalReport = {
-      removed: { sites: 0, reflectors: 0, geometries: 0, installations: 0, inspections: 0, photos: 0, revisions: 0, conflicts: 0 },
+      removed: { sites: 0, reflectors: 0, geometries: 0, installations: 0, inspections: 0, photos: 0, revisions: 0, conflicts: 0, elements: 0 },
       kept: [],
     };
     const gone = new Set<string>();
@@ -81,6 +82,9 @@ export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport
     const conflictIds = (await db.conflicts.toArray()).filter((c) => gone.has(key(c.table, c.recordId))).map((c) => c.id);
     await db.conflicts.bulkDelete(conflictIds);
     report.removed.conflicts = conflictIds.length;
+    const elementIds = (await db.elements.toArray()).filter((e) => e.demo === true).map((e) => e.id);
+    await db.elements.bulkDelete(elementIds);
+    report.removed.elements = elementIds.length;
     await rebuildSiteVisits(db);
     return report;
   });

@@ -25,6 +25,13 @@ export {
 export { clearDraft, loadDraft, saveDraft, type Draft } from './repo/drafts.ts';
 export { getMeta, setMeta, type MetaKey } from './repo/meta.ts';
 export { listConflicts, resolveConflict } from './repo/conflicts.ts';
+export {
+  elementRepo,
+  importElementSetsOnce,
+  type ElementImportResult,
+  type ElementSetInput,
+  type PutElementSetsOptions,
+} from './repo/elements.ts';
 
 export {
   requestPersistentStorage,
@@ -43,7 +50,9 @@ export {
   validateBackup,
   BACKUP_FORMAT,
   BACKUP_FORMAT_VERSION,
+  BACKUP_TABLES,
   type BackupDocument,
+  type BackupTable,
   type ExportOptions,
   type RestoreOptions,
   type TableCounts,

@@ -13,6 +13,7 @@
  * ("MF-01~2", written as a merge revision) and reported, so its children keep their parent.
  * Revisions are added when missing (rows are immutable; a differing row with the same id is a conflict);
  * the history of an incoming version that was not applied travels with its conflict row instead.
+ * Orbital element sets (`elements`) merge by the rules in mergeElements.ts.
  */
 import { storedRows } from './backup.ts';
 import type { BackupTable } from './backup/format.ts';
@@ -21,6 +22,7 @@ import { referenceIssues, validateBackup, type BackupCheckOptions } from './back
 import type { GlintmarkDb } from './db.ts';
 import { deepEqual } from './equal.ts';
 import { BackupError } from './errors.ts';
+import { mergeElementSets } from './mergeElements.ts';
 import { resolveContext, type WriteContext } from './repo/context.ts';
 import { makeRevision } from './repo/revisions.ts';
 import { liveSiteWithCode } from './repo/sites.ts';
@@ -155,6 +157,7 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
         report.conflicts.added++;
       }
     }
+    await mergeElementSets(db, doc.tables.elements, report.elements, nowMs);
     await rebuildSiteVisits(db);
     return report;
   });

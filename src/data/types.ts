@@ -1,5 +1,5 @@
 /**
- * Record shapes of the Logbook store (schema version 2). Every figure carries its unit in its name
+ * Record shapes of the Logbook store (schema version 4). Every figure carries its unit in its name
  * because IndexedDB rows and JSON exports keep nothing else. Conventions follow src/core/CONVENTIONS.md:
  * WGS84 degrees, ellipsoidal heights, azimuths clockwise from true north in [0, 360), declination east-positive,
  * instants in ms since 1970-01-01T00:00Z (`…AtMs`); exports add ISO 8601 UTC strings.
@@ -239,6 +239,29 @@ export interface ConflictRecord {
   detectedAtMs: number;
   resolvedAtMs: number | null;
 }
+
+/**
+ * An orbital element set (two-line elements) kept on the phone for offline pass prediction (schema version 4).
+ * One live set per catalogue number: adding a set for a number already stored replaces it (same row, rev + 1).
+ * Element sets are reference data, not field work: rows carry RecordMeta (so merges and removals travel between
+ * phones) but no history rows.
+ */
+export interface ElementSetFields {
+  /** Catalogue number, columns 3–7 of both lines, trimmed (e.g. "99001"). */
+  catalogNumber: string;
+  /** Name from the name line ("" when the set had none). */
+  name: string;
+  /** The two data lines exactly as checked (69 characters each). */
+  line1: string;
+  line2: string;
+  /** Element-set epoch, ms since 1970-01-01T00:00Z (read from line 1). */
+  epochMs: number;
+  /** When the set was added on this phone. */
+  addedAtMs: number;
+  /** True for the invented demonstration satellites: never for real planning. */
+  demo: boolean;
+}
+export type ElementSetRecord = RecordMeta & ElementSetFields;
 
 /** Derived summary per site (see repo/siteVisits.ts); never edited directly, never backed up. */
 export interface SiteVisitsRecord {

@@ -1,11 +1,13 @@
 import 'fake-indexeddb/auto';
 import Dexie from 'dexie';
 import { afterEach, describe, expect, it } from 'vitest';
-import { CURRENT_SCHEMA_VERSION, SCHEMA_V1, SCHEMA_V2, V1_DECLINATION_MODEL, openGlintmarkDb, type GlintmarkDb } from '../../src/data/db.ts';
+import { CURRENT_SCHEMA_VERSION, SCHEMA_V1, SCHEMA_V2, SCHEMA_V3, V1_DECLINATION_MODEL, openGlintmarkDb, type GlintmarkDb } from '../../src/data/db.ts';
+import { elementRepo } from '../../src/data/repo/elements.ts';
 import { getMeta } from '../../src/data/repo/meta.ts';
 import { parseFields, splitRow } from '../../src/data/schema/validate.ts';
 import type { EntityTable } from '../../src/data/types.ts';
-import { T0_MS } from './helpers.ts';
+import { GLINT_A } from './elementSets.ts';
+import { T0_MS, dumpDb, seedSample } from './helpers.ts';
 
 const names: string[] = [];
 const uniqueName = () => {
@@ -69,7 +71,7 @@ describe('schema versions', () => {
     const db = openGlintmarkDb(uniqueName());
     await db.open();
     expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
-    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 3 });
+    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 4 });
     db.close();
   });
 
@@ -78,7 +80,7 @@ describe('schema versions', () => {
     await writeV1(name);
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(3);
+    expect(db.verno).toBe(4);
 
     const { gnssFix: _g1, ...siteGnss } = v1Site(ID.siteGnss, 'MF-01', true);
     const { gnssFix: _g2, ...siteTyped } = v1Site(ID.siteTyped, 'MF-02', false);
@@ -136,6 +138,46 @@ describe('version 2 → 3', () => {
     ]);
     expect(await db.installations.toArray()).toEqual(expect.arrayContaining(rows));
     expect(await db.installations.count()).toBe(3);
+    db.close();
+  });
+});
+
+describe('version 3 → 4', () => {
+  it('keeps every row of every table and adds an empty, working element-set table', async () => {
+    // Realistic rows from today's repositories (sites … photos, history, visit summary), plus a conflict, a draft
+    // and meta, written into a real version-3 database (the version-1…3 stores exactly as shipped).
+    const source = openGlintmarkDb(uniqueName());
+    await seedSample(source);
+    await source.conflicts.add({ id: ID.rev, table: 'sites', recordId: ID.siteGnss, reason: 'test', kept: 'local', other: { code: 'MF-09' }, otherRevisions: [], detectedAtMs: T0_MS, resolvedAtMs: null });
+    await source.drafts.put({ key: 'installation-form', value: { notes: 'half typed' }, savedAtMs: T0_MS });
+    const v3Tables = source.tables.filter((t) => t.name !== 'elements').map((t) => t.name);
+    const rows: Record<string, unknown[]> = {};
+    for (const t of v3Tables) rows[t] = await source.table(t).toArray();
+    source.close();
+    expect(rows.photos).toHaveLength(1);
+    expect(rows.siteVisits.length).toBeGreaterThan(0);
+
+    const name = uniqueName();
+    const raw = new Dexie(name);
+    raw.version(1).stores(SCHEMA_V1);
+    raw.version(2).stores(SCHEMA_V2);
+    raw.version(3).stores(SCHEMA_V3);
+    for (const t of v3Tables) await raw.table(t).bulkAdd(rows[t]);
+    const before = await dumpDb(raw as unknown as GlintmarkDb);
+    expect(raw.verno).toBe(3);
+    raw.close();
+
+    const db = openGlintmarkDb(name);
+    await db.open();
+    expect(db.verno).toBe(4);
+    const after = await dumpDb(db);
+    expect(after.elements).toEqual([]);
+    const { elements: _e, ...kept } = after;
+    expect(kept).toEqual(before);
+    for (const t of Object.keys(before)) expect(before[t].length, t).toBe(rows[t].length);
+    // The new table and its index work on the migrated database.
+    const [set] = await elementRepo.put(db, [GLINT_A], { nowMs: T0_MS });
+    expect((await db.elements.where('catalogNumber').equals('99001').toArray()).map((r) => r.id)).toEqual([set.id]);
     db.close();
   });
 });

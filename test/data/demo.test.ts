@@ -27,7 +27,7 @@ describe('removeDemoData', () => {
     await seedDemo();
     const report = await removeDemoData(db());
     // Revisions: 5 creates, the site edit, the photo's create and the installation's photoIds update.
-    expect(report.removed).toEqual({ sites: 1, reflectors: 1, geometries: 1, installations: 1, inspections: 1, photos: 1, revisions: 8, conflicts: 0 });
+    expect(report.removed).toEqual({ sites: 1, reflectors: 1, geometries: 1, installations: 1, inspections: 1, photos: 1, revisions: 8, conflicts: 0, elements: 0 });
     expect(report.kept).toEqual([]);
     expect(await dumpDb(db())).toEqual(realBefore);
   });

@@ -12,13 +12,15 @@ describe('public API', () => {
       'exportInspectionsCsv', 'exportSitesCsv', 'previewSiteImport', 'commitSiteImport', 'querySiteListSources',
       'querySiteDetail', 'filterAndSortSites', 'foldForSearch', 'haversineDistanceM', 'getAppDb', 'useGlintmarkDb', 'useSites',
       'useSite', 'useSiteDetail', 'useReflectors', 'useGeometries', 'useInstallation', 'useInspection', 'useHistory',
-      'usePhotos', 'useOpenConflicts',
+      'usePhotos', 'useOpenConflicts', 'importElementSetsOnce',
     ] as const;
     for (const f of fns) expect(typeof api[f], f).toBe('function');
     for (const r of [api.siteRepo, api.reflectorRepo, api.geometryRepo, api.installationRepo, api.inspectionRepo]) {
       expect(Object.keys(r).sort()).toEqual(['create', 'get', 'list', 'softDelete', 'table', 'undelete', 'update']);
     }
+    expect(Object.keys(api.elementRepo).sort()).toEqual(['get', 'list', 'put', 'remove']);
+    expect(api.BACKUP_TABLES).toContain('elements');
     expect(api.SUGGESTED_PHOTO_ROLES).toHaveLength(7);
-    expect(api.CURRENT_SCHEMA_VERSION).toBe(3);
+    expect(api.CURRENT_SCHEMA_VERSION).toBe(4);
   });
 });

@@ -7,10 +7,15 @@
  *   "app": { "name": "glintmark", "version": "0.1.0", "schemaVersion": 2 },
  *   "tables": { "sites": [...], "reflectors": [...], "geometries": [...], "installations": [...],
  *               "inspections": [...], "photos": [{ ...row without blob, "dataBase64": "..." }],
- *               "revisions": [...], "conflicts": [...] }
+ *               "revisions": [...], "conflicts": [...], "elements": [...] }
  * }
  * Rows keep their stored shape (times as `…AtMs`); drafts and meta are device-local and not included.
  * A reader refuses a higher formatVersion rather than guessing.
+ *
+ * `elements` (orbital element sets, schema version 4) was added without a format bump: backups written before it
+ * simply lack the list, and readers of format 1 ignore table lists they do not know (the envelope is not strict).
+ * A missing `elements` list means "this backup carries no element sets", so restore leaves the phone's sets as
+ * they are (see backup.ts); an empty list means "none" and restore replaces them with none.
  */
 import * as v from 'valibot';
 import { lineText, oneOf, timeMs, uuid } from '../schema/fields.ts';
@@ -20,6 +25,7 @@ import {
   REVISION_KINDS,
   VERSIONED_TABLES,
   type ConflictRecord,
+  type ElementSetRecord,
   type GeometryRecord,
   type InspectionRecord,
   type InstallationRecord,
@@ -46,6 +52,8 @@ export interface BackupTables {
   photos: BackupPhoto[];
   revisions: RevisionRecord[];
   conflicts: BackupConflict[];
+  /** Always present after validateBackup (an absent list reads as []); see the header for what absence means. */
+  elements: ElementSetRecord[];
 }
 
 export interface BackupDocument {
@@ -56,8 +64,10 @@ export interface BackupDocument {
   tables: BackupTables;
 }
 
-export const BACKUP_TABLES = ['sites', 'reflectors', 'geometries', 'installations', 'inspections', 'photos', 'revisions', 'conflicts'] as const;
+export const BACKUP_TABLES = ['sites', 'reflectors', 'geometries', 'installations', 'inspections', 'photos', 'revisions', 'conflicts', 'elements'] as const;
 export type BackupTable = (typeof BACKUP_TABLES)[number];
+/** Tables a backup may lack because they were added after format 1 was defined. */
+export const OPTIONAL_BACKUP_TABLES: readonly BackupTable[] = ['elements'];
 
 const tableList = (name: string) => v.array(v.unknown(), `the backup's ${name} list is missing or not a list`);
 
@@ -67,7 +77,12 @@ export const envelopeSchema = v.object({
   formatVersion: v.literal(BACKUP_FORMAT_VERSION),
   exportedAtUtc: v.pipe(v.string('exportedAtUtc must be text'), v.isoTimestamp('exportedAtUtc must be an ISO 8601 time')),
   app: v.object({ name: v.string('app.name must be text'), version: v.string('app.version must be text'), schemaVersion: v.number() }),
-  tables: v.object(Object.fromEntries(BACKUP_TABLES.map((t) => [t, tableList(t)])) as Record<BackupTable, ReturnType<typeof tableList>>),
+  tables: v.object(
+    Object.fromEntries(BACKUP_TABLES.map((t) => [t, OPTIONAL_BACKUP_TABLES.includes(t) ? v.optional(tableList(t)) : tableList(t)])) as Record<
+      BackupTable,
+      ReturnType<typeof tableList> | v.OptionalSchema<ReturnType<typeof tableList>, undefined>
+    >,
+  ),
 });
 
 export const photoRowSchema = v.strictObject({

@@ -7,6 +7,7 @@ import { base64DecodedLength } from '../base64.ts';
 import { BackupError, formatSize, type Issue } from '../errors.ts';
 import { DEFAULT_MAX_PHOTO_BYTES } from '../repo/photos.ts';
 import { toIssues } from '../schema/fields.ts';
+import { elementRowIssues } from '../schema/elements.ts';
 import { rowIssues } from '../schema/validate.ts';
 import { ENTITY_TABLES } from '../types.ts';
 import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, conflictRowSchema, envelopeSchema, photoRowSchema, revisionRowSchema, type BackupDocument, type BackupTable, type BackupTables } from './format.ts';
@@ -79,7 +80,7 @@ function fail(kind: BackupError['kind'], what: string, issues: Issue[]): BackupE
 
 const rowName = (table: string, i: number, row: unknown): string => {
   const r = (row ?? {}) as Record<string, unknown>;
-  const hint = typeof r.code === 'string' ? r.code : typeof r.label === 'string' ? r.label : '';
+  const hint = typeof r.code === 'string' ? r.code : typeof r.label === 'string' ? r.label : typeof r.catalogNumber === 'string' ? r.catalogNumber : '';
   return `${table}[${i}]${hint ? ` (${hint})` : ''}`;
 };
 
@@ -93,6 +94,7 @@ function recordIssues(tables: BackupTables): Issue[] {
       if (!r.success) issues.push(...toIssues(r.issues, rowName(t, i, row)));
     });
   }
+  tables.elements.forEach((row, i) => issues.push(...elementRowIssues(row, rowName('elements', i, row))));
   tables.photos.forEach((p, i) => {
     const n = base64DecodedLength(p.dataBase64);
     if (n < 0) issues.push({ path: `photos[${i}].dataBase64`, message: 'is not valid base64' });
@@ -118,6 +120,13 @@ function duplicateIssues(tables: BackupTables): Issue[] {
     const first = codes.get(key);
     if (first !== undefined) issues.push({ path: `sites[${i}] (${s.code})`, message: `uses the same code as the live site sites[${first}]` });
     else codes.set(key, i);
+  });
+  const numbers = new Map<string, number>();
+  tables.elements.forEach((e, i) => {
+    if (e.deletedAtMs !== null) return;
+    const first = numbers.get(e.catalogNumber);
+    if (first !== undefined) issues.push({ path: `elements[${i}] (${e.catalogNumber})`, message: `is a second live element set for this catalogue number (see elements[${first}])` });
+    else numbers.set(e.catalogNumber, i);
   });
   return issues;
 }
@@ -152,12 +161,21 @@ export function referenceIssues(tables: BackupTables, has: (table: BackupTable, 
   return issues;
 }
 
+/** A checked document, and whether the file carried the `elements` list (backups before schema 4 do not). */
+export interface CheckedBackup {
+  doc: BackupDocument;
+  hasElements: boolean;
+}
+
 /**
  * Parse (when given text) and check a whole backup document. Throws BackupError with kind:
  * not-json, truncated, wrong-format, wrong-version, invalid-record, duplicate-id, photo-too-large, dangling-reference.
+ * The returned document always has every table list (a missing `elements` list reads as []); the input is not changed.
  */
-export function validateBackup(input: unknown, opts: BackupCheckOptions = {}): BackupDocument {
-  const doc = checkEnvelope(typeof input === 'string' ? parseText(input) : input);
+export function checkBackup(input: unknown, opts: BackupCheckOptions = {}): CheckedBackup {
+  const raw = checkEnvelope(typeof input === 'string' ? parseText(input) : input);
+  const hasElements = Array.isArray(raw.tables.elements);
+  const doc: BackupDocument = hasElements ? raw : { ...raw, tables: { ...raw.tables, elements: [] } };
   const t = doc.tables;
   const rec = recordIssues(t);
   if (rec.length) throw fail('invalid-record', `${rec.length} problem(s) in its records`, rec);
@@ -170,5 +188,8 @@ export function validateBackup(input: unknown, opts: BackupCheckOptions = {}): B
     const refs = referenceIssues(t, (table, id) => ids.get(table)?.has(id) ?? false);
     if (refs.length) throw fail('dangling-reference', 'some records point to records that are missing', refs);
   }
-  return doc;
+  return { doc, hasElements };
 }
+
+/** checkBackup's document (see there). */
+export const validateBackup = (input: unknown, opts: BackupCheckOptions = {}): BackupDocument => checkBackup(input, opts).doc;
