@@ -1,0 +1,169 @@
+/**
+ * The "New site" / "Edit site" form: typed text → SiteFields for siteRepo, checked field by field in place.
+ * Also the hand-overs between a site record and the workflow (the site the other tabs work on). Pure.
+ */
+import type { PositionSource, SiteFields, SiteRecord } from '../../../data/index.ts';
+import type { Fix } from '../../../sensors/index.ts';
+import type { SiteInput } from '../../state/workflow.ts';
+import { line, note, num, optNum, RANGES, wrapLonDeg, type FieldErrors } from './parse.ts';
+
+export interface SiteForm {
+  code: string;
+  name: string;
+  latDeg: string;
+  lonDeg: string;
+  heightEllM: string;
+  /** Horizontal accuracy, m; empty = unknown. */
+  accuracyM: string;
+  positionSource: Exclude<PositionSource, 'imported'> | 'imported';
+  referenceFrame: string;
+  /** Decimal year; empty = none. */
+  frameEpoch: string;
+  notes: string;
+}
+
+export const DEFAULT_FRAME = 'WGS84';
+
+export const EMPTY_SITE_FORM: SiteForm = {
+  code: '',
+  name: '',
+  latDeg: '',
+  lonDeg: '',
+  heightEllM: '',
+  accuracyM: '',
+  positionSource: 'typed',
+  referenceFrame: DEFAULT_FRAME,
+  frameEpoch: '',
+  notes: '',
+};
+
+export interface ParsedSite {
+  fields: SiteFields | null;
+  errors: FieldErrors<keyof SiteForm>;
+}
+
+/** Check every field; `fields` only when all are fine. New sites are never demo records. */
+export function parseSiteForm(f: SiteForm, demo = false): ParsedSite {
+  const code = line('Site code', f.code, { min: 1, max: 32 });
+  const name = line('Site name', f.name, { max: 200 });
+  const lat = num('Latitude', f.latDeg, RANGES.latDeg);
+  const lon = num('Longitude', f.lonDeg, RANGES.lonDeg);
+  const h = num('Ellipsoidal height', f.heightEllM, RANGES.heightEllM);
+  const acc = optNum('Position accuracy', f.accuracyM, RANGES.accuracyM);
+  const frame = line('Reference frame', f.referenceFrame, { min: 1, max: 40 });
+  const epoch = optNum('Frame epoch', f.frameEpoch, RANGES.frameEpoch);
+  const notes = note('Notes', f.notes);
+  const errors: ParsedSite['errors'] = {
+    code: code.error,
+    name: name.error,
+    latDeg: lat.error,
+    lonDeg: lon.error,
+    heightEllM: h.error,
+    accuracyM: acc.error,
+    referenceFrame: frame.error,
+    frameEpoch: epoch.error,
+    notes: notes.error,
+  };
+  if (Object.values(errors).some((e) => e !== undefined)) return { fields: null, errors };
+  return {
+    errors: {},
+    fields: {
+      code: code.value!,
+      name: name.value!,
+      latDeg: lat.value!,
+      lonDeg: wrapLonDeg(lon.value!),
+      heightEllM: h.value!,
+      positionSource: f.positionSource,
+      positionAccuracyM: acc.value ?? null,
+      referenceFrame: frame.value!,
+      frameEpoch: epoch.value ?? null,
+      notes: notes.value!,
+      demo,
+    },
+  };
+}
+
+/** Apply a typed change; typing coordinates over a phone fix makes the position 'typed'. */
+export function editSiteForm(f: SiteForm, patch: Partial<SiteForm>): SiteForm {
+  const next = { ...f, ...patch };
+  const coordsTyped = patch.latDeg !== undefined || patch.lonDeg !== undefined;
+  if (coordsTyped && f.positionSource === 'gnss-phone' && patch.positionSource === undefined) next.positionSource = 'typed';
+  return next;
+}
+
+/** Fill the position from a phone fix (height kept when the phone gives none). */
+export function siteFormWithFix(f: SiteForm, fix: Fix): SiteForm {
+  return {
+    ...f,
+    latDeg: fix.latDeg.toFixed(7),
+    lonDeg: fix.lonDeg.toFixed(7),
+    heightEllM: fix.heightEllM !== null ? fix.heightEllM.toFixed(2) : f.heightEllM,
+    accuracyM: fix.horizontalAccuracyM.toFixed(1),
+    positionSource: 'gnss-phone',
+    referenceFrame: f.referenceFrame.trim() === '' ? DEFAULT_FRAME : f.referenceFrame,
+  };
+}
+
+export function siteFormFromRecord(r: SiteRecord): SiteForm {
+  return {
+    code: r.code,
+    name: r.name,
+    latDeg: String(r.latDeg),
+    lonDeg: String(r.lonDeg),
+    heightEllM: String(r.heightEllM),
+    accuracyM: r.positionAccuracyM === null ? '' : String(r.positionAccuracyM),
+    positionSource: r.positionSource,
+    referenceFrame: r.referenceFrame,
+    frameEpoch: r.frameEpoch === null ? '' : String(r.frameEpoch),
+    notes: r.notes,
+  };
+}
+
+/** A new-site form from the site the other tabs worked on (typed or phone GNSS on the Passes screen). */
+export function siteFormFromWorkflow(s: SiteInput): SiteForm {
+  return {
+    ...EMPTY_SITE_FORM,
+    code: s.code ?? '',
+    name: s.name ?? '',
+    latDeg: String(s.latDeg),
+    lonDeg: String(s.lonDeg),
+    heightEllM: String(s.heightEllM),
+    accuracyM: s.accuracyM === undefined ? '' : String(s.accuracyM),
+    positionSource: s.source === 'gnss-phone' ? 'gnss-phone' : 'typed',
+  };
+}
+
+/** The workflow's site for a logbook record ("Use this site"). */
+export function siteInputFromRecord(r: SiteRecord): SiteInput {
+  return {
+    id: r.id,
+    code: r.code,
+    name: r.name,
+    latDeg: r.latDeg,
+    lonDeg: r.lonDeg,
+    heightEllM: r.heightEllM,
+    ...(r.positionAccuracyM !== null ? { accuracyM: r.positionAccuracyM } : {}),
+    source: 'logbook',
+  };
+}
+
+/** Only the fields that differ (an unchanged form writes no revision). */
+export function changedFields<T extends object>(before: T, after: T): Partial<T> {
+  const patch: Partial<T> = {};
+  for (const k of Object.keys(after) as (keyof T)[]) {
+    if (JSON.stringify(before[k]) !== JSON.stringify(after[k])) patch[k] = after[k];
+  }
+  return patch;
+}
+
+/** The workflow site's logbook record: by id, else by code (case-insensitive); null when it is not in the logbook. */
+export function findWorkflowSite<S extends { id: string; code: string }>(sites: readonly S[], s: SiteInput | null): S | null {
+  if (!s) return null;
+  if (s.id) {
+    const byId = sites.find((x) => x.id === s.id);
+    if (byId) return byId;
+  }
+  const code = s.code?.trim().toLowerCase();
+  if (!code) return null;
+  return sites.find((x) => x.code.toLowerCase() === code) ?? null;
+}
