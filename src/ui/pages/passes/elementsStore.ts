@@ -1,12 +1,17 @@
 /**
  * Orbital element sets kept on this phone for offline pass prediction.
  *
- * For now the sets live in localStorage under one key. The logbook's Dexie schema will take them over later:
- * the interface is deliberately narrow (list / add / remove) and async, so that swap changes this file only and
- * no caller. Each stored set is re-checked with parseTle when read, so a damaged entry is dropped, not propagated.
- * One set per catalogue number: adding a set for a number already stored replaces it (last added wins).
+ * The sets live in the logbook database (table `elements`, schema version 4, through `elementRepo`), so they are
+ * in the full backup and travel by merge. The interface is narrow (list / add / remove) and async; callers never
+ * see the storage. One set per catalogue number: adding a set for a number already stored replaces it (last added
+ * wins). Each set is checked (its lines must parse as that set) before it is written.
+ *
+ * Earlier versions kept the sets in localStorage under ELEMENTS_STORAGE_KEY. On first use the database store
+ * imports those once (`importElementSetsOnce`; damaged entries are dropped, as they always were) and then clears
+ * the old key. `createElementsStore` is that older key-value store, kept to read the old entries.
  */
 import { parseTle, type TleSet } from '../../../core/orbit/tle.ts';
+import { elementRepo, getAppDb, importElementSetsOnce, type ElementSetRecord, type GlintmarkDb } from '../../../data/index.ts';
 
 export interface StoredElementSet extends TleSet {
   /** True for the invented demonstration satellite: never for real planning. */
@@ -19,6 +24,7 @@ export interface StoredElementSet extends TleSet {
 export interface KeyValueStorage {
   getItem(key: string): string | null;
   setItem(key: string, value: string): void;
+  removeItem?(key: string): void;
 }
 
 export interface ElementsStore {
@@ -50,7 +56,10 @@ function revive(raw: unknown): StoredElementSet[] {
   return out;
 }
 
-/** A store over any key-value storage. Writes throw the storage's own error (e.g. QuotaExceededError). */
+/**
+ * The earlier store over a key-value storage (localStorage), kept to read what older versions saved.
+ * Writes throw the storage's own error (e.g. QuotaExceededError).
+ */
 export function createElementsStore(storage: KeyValueStorage, key = ELEMENTS_STORAGE_KEY): ElementsStore {
   const read = (): StoredElementSet[] => {
     const text = storage.getItem(key);
@@ -90,17 +99,66 @@ export function memoryStorage(): KeyValueStorage {
   return { getItem: (k) => m.get(k) ?? null, setItem: (k, v) => void m.set(k, v) };
 }
 
-function defaultStorage(): KeyValueStorage {
+function defaultStorage(): KeyValueStorage | undefined {
   try {
-    const ls = globalThis.localStorage;
-    if (ls) return ls;
+    return globalThis.localStorage ?? undefined;
   } catch {
-    /* access to localStorage can throw when storage is disabled */
+    return undefined; /* access to localStorage can throw when storage is disabled */
   }
-  return memoryStorage();
 }
 
-const store = createElementsStore(defaultStorage());
+const toStored = (r: ElementSetRecord): StoredElementSet => ({
+  name: r.name,
+  catalogNumber: r.catalogNumber,
+  line1: r.line1,
+  line2: r.line2,
+  epochMs: r.epochMs,
+  demo: r.demo,
+  addedAtMs: r.addedAtMs,
+});
+
+/**
+ * The store over the logbook database. `legacy` is where older versions kept the sets (localStorage): they are
+ * imported on first use, once per database, and the old key is cleared afterwards. Rejections are the database's
+ * (e.g. QuotaExceededError) or a ValidationError for a set whose lines do not parse; nothing is written then.
+ */
+export function createDbElementsStore(db: () => GlintmarkDb, legacy?: KeyValueStorage, key = ELEMENTS_STORAGE_KEY): ElementsStore {
+  let imported: Promise<void> | null = null;
+  const importLegacy = async () => {
+    if (!legacy) return;
+    const old = await createElementsStore(legacy, key).listElementSets();
+    await importElementSetsOnce(db(), old);
+    try {
+      legacy.removeItem?.(key);
+    } catch {
+      /* the old entries stay behind; the import is recorded and will not run again */
+    }
+  };
+  const ready = () =>
+    (imported ??= importLegacy().catch((e: unknown) => {
+      imported = null; // try again on the next call
+      throw e;
+    }));
+  const list = async () => (await elementRepo.list(db())).map(toStored);
+  return {
+    async listElementSets() {
+      await ready();
+      return list();
+    },
+    async addElementSets(sets, opts = {}) {
+      await ready();
+      await elementRepo.put(db(), sets, { demo: opts.demo, nowMs: opts.nowMs });
+      return list();
+    },
+    async removeElementSet(catalogNumber) {
+      await ready();
+      await elementRepo.remove(db(), catalogNumber);
+      return list();
+    },
+  };
+}
+
+const store = createDbElementsStore(getAppDb, defaultStorage());
 export const listElementSets = store.listElementSets;
 export const addElementSets = store.addElementSets;
 export const removeElementSet = store.removeElementSet;
