@@ -1,0 +1,50 @@
+/** One isolated fake-indexeddb database per test, deleted afterwards. */
+import 'fake-indexeddb/auto';
+import { afterEach, beforeEach } from 'vitest';
+import { openGlintmarkDb, type GlintmarkDb } from '../../../src/data/index.ts';
+import type { SaveFileResult } from '../../../src/sensors/backupFile.ts';
+
+export function useTestDb(): () => GlintmarkDb {
+  let db: GlintmarkDb | undefined;
+  beforeEach(() => {
+    db = openGlintmarkDb(`settings-${crypto.randomUUID()}`);
+  });
+  afterEach(async () => {
+    await db?.delete();
+    db = undefined;
+  });
+  return () => {
+    if (!db) throw new Error('useTestDb: no database outside a test');
+    return db;
+  };
+}
+
+/** A file saver stub that keeps what it was given. */
+export function memorySaver(fail?: string) {
+  const files: { name: string; text: string; askPermission: boolean | undefined }[] = [];
+  const save = async (name: string, text: string, opts?: { askPermission?: boolean }): Promise<SaveFileResult> => {
+    if (fail) return { ok: false, error: { message: fail } };
+    files.push({ name, text, askPermission: opts?.askPermission });
+    return { ok: true, value: { where: `Documents/${name}` } };
+  };
+  return { save, files };
+}
+
+/** 2027-07-02T12:00:00Z */
+export const T0_MS = Date.UTC(2027, 6, 2, 12);
+export const BY = { by: 'Ada Quill' };
+
+export const site = (code: string, o: Record<string, unknown> = {}) => ({
+  code,
+  name: `Marrowby Fen ${code}`,
+  latDeg: 52.4123,
+  lonDeg: -1.2345,
+  heightEllM: 61.2,
+  positionSource: 'typed' as const,
+  positionAccuracyM: null,
+  referenceFrame: 'WGS84',
+  frameEpoch: null,
+  notes: '',
+  demo: false,
+  ...o,
+});
