@@ -1,6 +1,17 @@
+/** Settings: preferences, storage, backup (download, restore, merge), exchange (exports, site import), demo data. */
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { useCallback, useState } from 'react';
+import { BackupReminder } from './BackupReminder.tsx';
+import { BackupSection } from './BackupSection.tsx';
+import { DemoSection } from './DemoSection.tsx';
+import { ExchangeSection } from './ExchangeSection.tsx';
+import { PreferencesSection } from './PreferencesSection.tsx';
+import { StorageSection } from './StorageSection.tsx';
+import './settings.css';
 
 export function SettingsPage() {
+  const [refreshKey, setRefreshKey] = useState(0);
+  const changed = useCallback(() => setRefreshKey((n) => n + 1), []);
   return (
     <IonPage>
       <IonHeader>
@@ -10,7 +21,16 @@ export function SettingsPage() {
       </IonHeader>
       <IonContent className="ion-padding">
         <main>
-          <h1 className="gm-label">Settings</h1>
+          <h1 className="gm-label">Settings and data</h1>
+          <p data-testid="privacy">
+            Nothing leaves this phone unless you export or share it. Glintmark has no account and sends your records nowhere.
+          </p>
+          <BackupReminder onSaved={changed} />
+          <PreferencesSection />
+          <StorageSection refreshKey={refreshKey} />
+          <BackupSection onChanged={changed} />
+          <ExchangeSection onChanged={changed} />
+          <DemoSection onChanged={changed} />
         </main>
       </IonContent>
     </IonPage>

@@ -1,0 +1,124 @@
+/**
+ * Merge a backup from another phone: pick → checked and described → "Merge" → the report (added, updated,
+ * unchanged, newer here, conflicts listed one by one). Nothing is dropped: a version not applied is kept as a conflict.
+ */
+import { useState } from 'react';
+import { mergeBackup, useGlintmarkDb, validateBackup, type MergeReport } from '../../../data/index.ts';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
+import { FilePicker } from './FilePicker.tsx';
+import { describeBackup, mergeConflictLines, mergeRows, mergeSummary } from './reports.ts';
+import { messageOf } from './uiErrors.ts';
+
+type Step = { step: 'idle' } | { step: 'confirm'; fileName: string; text: string; description: string } | { step: 'working' };
+
+function MergeReportView(props: { report: MergeReport }) {
+  const rows = mergeRows(props.report);
+  const conflicts = mergeConflictLines(props.report);
+  return (
+    <div data-testid="merge-report">
+      <p className="gm-okt" role="status" data-testid="merge-summary">
+        ✓ {mergeSummary(props.report)}
+      </p>
+      <div className="gm-settings-scroll">
+        <table className="gm-table">
+          <thead>
+            <tr>
+              <th scope="col">Records</th>
+              <th scope="col">Added</th>
+              <th scope="col">Updated</th>
+              <th scope="col">Unchanged</th>
+              <th scope="col">Newer here</th>
+              <th scope="col">Conflicts</th>
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.table} data-testid={`merge-row-${r.table}`}>
+                <th scope="row">{r.heading}</th>
+                <td>{r.added}</td>
+                <td>{r.updated}</td>
+                <td>{r.unchanged}</td>
+                <td>{r.localNewer}</td>
+                <td>{r.conflicts}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      {conflicts.length ? (
+        <>
+          <p className="gm-warn">⚠ Conflicts (both versions are kept; review them in the Logbook):</p>
+          <ul className="gm-settings-list" data-testid="merge-conflicts">
+            {conflicts.map((c, i) => (
+              <li key={i}>{c}</li>
+            ))}
+          </ul>
+        </>
+      ) : null}
+    </div>
+  );
+}
+
+export function MergePanel(props: { onChanged: () => void }) {
+  const db = useGlintmarkDb();
+  const crew = useStore(settings).crewName.trim();
+  const [step, setStep] = useState<Step>({ step: 'idle' });
+  const [report, setReport] = useState<MergeReport | null>(null);
+  const [error, setError] = useState<string | null>(null);
+
+  const pick = async (file: File) => {
+    setReport(null);
+    setError(null);
+    setStep({ step: 'idle' });
+    try {
+      const text = await file.text();
+      setStep({ step: 'confirm', fileName: file.name, text, description: describeBackup(validateBackup(text, { checkReferences: false })) });
+    } catch (e) {
+      setError(messageOf(e));
+    }
+  };
+
+  const merge = async () => {
+    if (step.step !== 'confirm') return;
+    const { text } = step;
+    setStep({ step: 'working' });
+    try {
+      setReport(await mergeBackup(db, text, { by: crew || 'Glintmark merge' }));
+      props.onChanged();
+    } catch (e) {
+      setError(messageOf(e));
+    }
+    setStep({ step: 'idle' });
+  };
+
+  return (
+    <div className="gm-card" style={{ marginTop: 8 }}>
+      <h3>Merge a backup from another phone</h3>
+      <p className="gm-note">Adds the other phone's records to this one and keeps the newer version of each; nothing is deleted.</p>
+      <FilePicker label="Backup file from the other phone (.json)" accept=".json,application/json" testId="merge-file" disabled={step.step === 'working'} onFile={(f) => void pick(f)} />
+      {step.step === 'confirm' ? (
+        <div className="gm-settings-confirm" data-testid="merge-confirm">
+          <p>
+            <strong>{step.fileName}</strong>: {step.description}
+          </p>
+          <div className="gm-settings-actions">
+            <button type="button" className="gm-btn gm-primary" onClick={() => void merge()} data-testid="merge-go">
+              Merge into this phone
+            </button>
+            <button type="button" className="gm-btn" onClick={() => setStep({ step: 'idle' })} data-testid="merge-cancel">
+              Cancel
+            </button>
+          </div>
+        </div>
+      ) : null}
+      {step.step === 'working' ? <p className="gm-note">Merging…</p> : null}
+      {report ? <MergeReportView report={report} /> : null}
+      {error ? (
+        <p className="gm-error" role="alert" data-testid="merge-error">
+          {error}
+        </p>
+      ) : null}
+    </div>
+  );
+}
