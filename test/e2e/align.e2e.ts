@@ -14,8 +14,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { deviceAnglesFromPlateOrientation } from '../../src/core/alignment/deviceOrientation.ts';
 import { aimForPass } from '../../src/core/geometry/pointing.ts';
 import { declination } from '../../src/core/magnetic/declination.ts';
-import { normalizeAzimuthDeg, toRad } from '../../src/core/units.ts';
 import { BASE_URL, fill, launch, phoneContext, screenshot, text } from './browser.ts';
+import { emulateOrientation, plateQuaternion as plateQuaternionAt, quaternionFromW3c, setOrientation, type Quaternion, type SensorType } from './sensors.ts';
 
 /** An invented site, "Marrowby Fen", and an instant inside WMM2025. */
 const SITE = { latitude: 52.61, longitude: 0.31, accuracy: 3 };
@@ -30,45 +30,18 @@ const DECL = (() => {
 })();
 const POLL = { timeout: 15_000, interval: 200 };
 
-type Quaternion = { x: number; y: number; z: number; w: number };
-const mul = (p: Quaternion, q: Quaternion): Quaternion => ({
-  x: p.w * q.x + p.x * q.w + p.y * q.z - p.z * q.y,
-  y: p.w * q.y - p.x * q.z + p.y * q.w + p.z * q.x,
-  z: p.w * q.z + p.x * q.y - p.y * q.x + p.z * q.w,
-  w: p.w * q.w - p.x * q.x - p.y * q.y - p.z * q.z,
-});
-/** Quaternion of the W3C rotation Rz(α)·Rx(β)·Ry(γ) (intrinsic Z-X'-Y''), as Chromium's sensor override takes it. */
-function quaternionFromW3c(alphaDeg: number, betaDeg: number, gammaDeg: number): Quaternion {
-  const h = (d: number) => toRad(d) / 2;
-  const qz = { x: 0, y: 0, z: Math.sin(h(alphaDeg)), w: Math.cos(h(alphaDeg)) };
-  const qx = { x: Math.sin(h(betaDeg)), y: 0, z: 0, w: Math.cos(h(betaDeg)) };
-  const qy = { x: 0, y: Math.sin(h(gammaDeg)), z: 0, w: Math.cos(h(gammaDeg)) };
-  return mul(mul(qz, qx), qy);
-}
-/** The quaternion a phone on a plate at this TRUE orientation reports (its compass reads true − declination). */
-function plateQuaternion(o: { azimuthDeg: number; tiltDeg: number; rollDeg: number }): Quaternion {
-  const a = deviceAnglesFromPlateOrientation({ ...o, azimuthDeg: normalizeAzimuthDeg(o.azimuthDeg - DECL) });
-  return quaternionFromW3c(a.alphaDeg, a.betaDeg, a.gammaDeg);
-}
-
-type SensorType = 'absolute-orientation' | 'relative-orientation';
-async function setOrientation(cdp: CDPSession, type: SensorType, q: Quaternion): Promise<void> {
-  await cdp.send('Emulation.setSensorOverrideReadings', { type, reading: { quaternion: q } });
-}
+/** The quaternion a phone on a plate at this TRUE orientation reports at the test's site and date. */
+const plateQuaternion = (o: { azimuthDeg: number; tiltDeg: number; rollDeg: number }) => plateQuaternionAt(o, DECL);
 
 async function openPhone(browser: Browser, type: SensorType, q: Quaternion): Promise<{ ctx: BrowserContext; page: Page; cdp: CDPSession; errors: string[] }> {
   const ctx = await phoneContext(browser);
-  // Playwright's grant denies every permission not listed, and phoneContext grants only geolocation: without
-  // these, Chromium sends no orientation events at all.
-  await ctx.grantPermissions(['geolocation', 'accelerometer', 'gyroscope', 'magnetometer'], { origin: BASE_URL });
   const page = await ctx.newPage();
   const errors: string[] = [];
   page.on('pageerror', (e) => errors.push(e.message));
   await page.clock.install({ time: T0 });
   const cdp = await ctx.newCDPSession(page);
   await cdp.send('Emulation.setGeolocationOverride', SITE);
-  await cdp.send('Emulation.setSensorOverrideEnabled', { enabled: true, type });
-  await setOrientation(cdp, type, q);
+  await emulateOrientation(cdp, type, q);
   return { ctx, page, cdp, errors };
 }
 
@@ -184,7 +157,7 @@ describe('Align screen without a compass', () => {
   });
 
   it('with motion sensors refused by the browser, asks for a tap and then says they were refused', async () => {
-    const ctx = await phoneContext(browser); // geolocation only: Chromium's motion-sensor permission is denied
+    const ctx = await phoneContext(browser, { motionSensors: false }); // Chromium's motion-sensor permission is denied
     const page = await ctx.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
@@ -199,15 +172,13 @@ describe('Align screen without a compass', () => {
 
   it('outside the magnetic model dates says so and shows no true azimuth', async () => {
     const ctx = await phoneContext(browser);
-    await ctx.grantPermissions(['geolocation', 'accelerometer', 'gyroscope', 'magnetometer'], { origin: BASE_URL });
-    const page = await ctx.newPage();
+      const page = await ctx.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
     await page.clock.install({ time: new Date('2031-03-01T10:00:00Z') });
     const cdp = await ctx.newCDPSession(page);
     await cdp.send('Emulation.setGeolocationOverride', SITE);
-    await cdp.send('Emulation.setSensorOverrideEnabled', { enabled: true, type: 'absolute-orientation' });
-    await setOrientation(cdp, 'absolute-orientation', quaternionFromW3c(0, 10, 0));
+    await emulateOrientation(cdp, 'absolute-orientation', quaternionFromW3c(0, 10, 0));
     await planAndAlign(page);
     await expect.poll(() => text(page, 'declination'), POLL).toMatch(/WMM2025 is valid from 2025-01-01 to 2030-01-01/);
     expect(await text(page, 'compass-status')).toMatch(/Compass working/);

@@ -18,11 +18,14 @@ export async function launch(): Promise<Browser> {
 }
 
 /** A phone-sized context with geolocation granted for the preview origin. */
-export async function phoneContext(browser: Browser, opts: { geolocation?: boolean; acknowledgeSafety?: boolean } = {}): Promise<BrowserContext> {
+export async function phoneContext(browser: Browser, opts: { geolocation?: boolean; motionSensors?: boolean; acknowledgeSafety?: boolean } = {}): Promise<BrowserContext> {
   const ctx = await browser.newContext({ viewport: { width: 412, height: 915 }, deviceScaleFactor: 1, hasTouch: true, isMobile: false });
   // Playwright refuses every permission not listed here, and Chromium then sends no orientation events at all.
-  const sensors = ['accelerometer', 'gyroscope', 'magnetometer'];
-  await ctx.grantPermissions(opts.geolocation !== false ? ['geolocation', ...sensors] : sensors, { origin: BASE_URL });
+  const permissions = [
+    ...(opts.geolocation !== false ? ['geolocation'] : []),
+    ...(opts.motionSensors !== false ? ['accelerometer', 'gyroscope', 'magnetometer'] : []),
+  ];
+  await ctx.grantPermissions(permissions, { origin: BASE_URL });
   if (opts.acknowledgeSafety !== false) {
     // The first-run panels (safety, demo offer) have their own tests; other tests start as a crew past them.
     await ctx.addInitScript(() => {
