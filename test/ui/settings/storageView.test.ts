@@ -15,6 +15,7 @@ describe('storage lines', () => {
 
   it('estimate: used of quota with a warning above the threshold, or no estimate', () => {
     expect(estimateLine({ usageBytes: 12_300_000, quotaBytes: 2_000_000_000, usedFraction: 0.00615, level: 'ok' })).toEqual({ level: 'ok', text: 'Using 12.3 MB of about 2.0 GB (0.6 %).' });
+    expect(estimateLine({ usageBytes: 74_000, quotaBytes: 10_700_000_000, usedFraction: 6.9e-6, level: 'ok' }).text).toBe('Using 74 kB of about 10.7 GB (under 0.1 %).');
     const warn = estimateLine({ usageBytes: 850_000_000, quotaBytes: 1_000_000_000, usedFraction: 0.85, level: 'warn' });
     expect(warn.level).toBe('warn');
     expect(warn.text).toBe('Using 850.0 MB of about 1.0 GB (85.0 %). Storage is nearly full: make a backup, then remove photos you no longer need.');

@@ -9,7 +9,7 @@ export function ImportPreviewTable(props: { fileName: string; preview: SiteImpor
       <p data-testid="import-summary">
         <strong>{props.fileName}</strong>: {previewSummary(props.preview)}
       </p>
-      <div className="gm-settings-scroll">
+      <div className="gm-settings-scroll" tabIndex={0} role="region" aria-label="Import preview (scrolls sideways)">
         <table className="gm-table">
           <thead>
             <tr>

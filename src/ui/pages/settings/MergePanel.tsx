@@ -20,32 +20,14 @@ function MergeReportView(props: { report: MergeReport }) {
       <p className="gm-okt" role="status" data-testid="merge-summary">
         ✓ {mergeSummary(props.report)}
       </p>
-      <div className="gm-settings-scroll">
-        <table className="gm-table">
-          <thead>
-            <tr>
-              <th scope="col">Records</th>
-              <th scope="col">Added</th>
-              <th scope="col">Updated</th>
-              <th scope="col">Unchanged</th>
-              <th scope="col">Newer here</th>
-              <th scope="col">Conflicts</th>
-            </tr>
-          </thead>
-          <tbody>
-            {rows.map((r) => (
-              <tr key={r.table} data-testid={`merge-row-${r.table}`}>
-                <th scope="row">{r.heading}</th>
-                <td>{r.added}</td>
-                <td>{r.updated}</td>
-                <td>{r.unchanged}</td>
-                <td>{r.localNewer}</td>
-                <td>{r.conflicts}</td>
-              </tr>
-            ))}
-          </tbody>
-        </table>
-      </div>
+      <ul className="gm-settings-list" aria-label="Merge by kind of record">
+        {rows.map((r) => (
+          <li key={r.table} data-testid={`merge-row-${r.table}`}>
+            <strong>{r.heading}</strong>: {r.added} added · {r.updated} updated · {r.unchanged} unchanged · {r.localNewer} newer here · {r.conflicts}{' '}
+            {r.conflicts === 1 ? 'conflict' : 'conflicts'}
+          </li>
+        ))}
+      </ul>
       {conflicts.length ? (
         <>
           <p className="gm-warn">⚠ Conflicts (both versions are kept; review them in the Logbook):</p>

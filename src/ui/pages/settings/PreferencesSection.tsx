@@ -56,7 +56,7 @@ export function PreferencesSection() {
     if (x !== undefined) settings.set({ methodToleranceDeg: x });
   };
   return (
-    <section className="gm-section" aria-labelledby="prefs-h">
+    <section className="gm-section gm-settings-prefs" aria-labelledby="prefs-h">
       <h2 id="prefs-h">Preferences</h2>
       <p className="gm-note">Kept on this phone only; not part of the logbook backup.</p>
       <Segmented label="Theme" value={s.theme} options={THEMES} onChange={(v) => settings.set({ theme: v })} testId="theme" />

@@ -39,7 +39,8 @@ export function estimateLine(e: StorageEstimate): Line {
   if (e.level === 'unknown' || e.usageBytes === null || e.quotaBytes === null || e.usedFraction === null) {
     return { level: 'note', text: 'This browser does not say how much storage is used.' };
   }
-  const used = `Using ${formatBytes(e.usageBytes)} of about ${formatBytes(e.quotaBytes)} (${fmtNum(e.usedFraction * 100, 1)} %).`;
+  const percent = e.usedFraction < 0.001 ? 'under 0.1 %' : `${fmtNum(e.usedFraction * 100, 1)} %`;
+  const used = `Using ${formatBytes(e.usageBytes)} of about ${formatBytes(e.quotaBytes)} (${percent}).`;
   return e.level === 'warn'
     ? { level: 'warn', text: `${used} Storage is nearly full: make a backup, then remove photos you no longer need.` }
     : { level: 'ok', text: used };
