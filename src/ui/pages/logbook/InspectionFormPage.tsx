@@ -1,16 +1,32 @@
-import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+/**
+ * `/logbook/inspection/new/:reflectorId` (a new inspection of one reflector) and `/logbook/inspection/:inspectionId`
+ * (a stored one). A new form starts afresh each time the screen is entered.
+ */
+import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar, useIonViewWillEnter } from '@ionic/react';
+import { useRef, useState } from 'react';
+import { useParams } from 'react-router-dom';
+import { EditInspection } from './EditInspection.tsx';
+import { NewInspection } from './NewInspection.tsx';
+import './logbook.css';
 
 export function InspectionFormPage() {
+  const { reflectorId, inspectionId } = useParams<{ reflectorId?: string; inspectionId?: string }>();
+  const [session, setSession] = useState(0);
+  const entered = useRef(false);
+  useIonViewWillEnter(() => {
+    if (entered.current) setSession((s) => s + 1);
+    entered.current = true;
+  });
   return (
     <IonPage>
       <IonHeader>
         <IonToolbar>
-          <IonTitle>Inspection</IonTitle>
+          <IonTitle>{inspectionId ? 'Inspection' : 'New inspection'}</IonTitle>
         </IonToolbar>
       </IonHeader>
       <IonContent className="ion-padding">
         <main>
-          <h1 className="gm-label">Inspection</h1>
+          {inspectionId ? <EditInspection key={inspectionId} id={inspectionId} /> : reflectorId ? <NewInspection key={`${reflectorId}-${session}`} reflectorId={reflectorId} /> : null}
         </main>
       </IonContent>
     </IonPage>

@@ -1,6 +1,201 @@
+/**
+ * One site: details (units in labels), reflectors, planned geometries, installations, inspections and the history
+ * timeline; "Use this site" hands it to Plan or Passes; delete is soft, with Undo.
+ */
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
+import { useEffect, useState } from 'react';
+import { useHistory, useParams } from 'react-router-dom';
+import { siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
+import { workflow } from '../../state/workflow.ts';
+import { BackLink, DemoBadge, ErrorNote, SavedNote } from './bits.tsx';
+import { saveErrorMessage } from './errorWords.ts';
+import { shownErrors } from './inputs.tsx';
+import { changedFields, parseSiteForm, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
+import { SiteFormFields } from './SiteFormFields.tsx';
+import { GeometryTable, InspectionList, InstallationList, ReflectorSection, SiteDetails } from './SiteSections.tsx';
+import { Timeline } from './Timeline.tsx';
+import { loadSiteTimeline, type TimelineEntry } from './timeline.ts';
+import { writtenBy } from './words.ts';
+import './logbook.css';
+
+function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void }) {
+  const db = useGlintmarkDb();
+  const st = useStore(settings);
+  const [form, setForm] = useState<SiteForm>(() => siteFormFromRecord(props.site));
+  const [error, setError] = useState<string | null>(null);
+  const [busy, setBusy] = useState(false);
+  const parsed = parseSiteForm(form, props.site.demo);
+  const save = async () => {
+    if (!parsed.fields) {
+      setError('Check the marked fields.');
+      return;
+    }
+    const patch = changedFields(withoutMeta(props.site), parsed.fields);
+    setBusy(true);
+    try {
+      await withReopen(db, () => siteRepo.update(db, props.site.id, patch, { by: writtenBy(st.crewName), expectedRev: props.site.rev }));
+      props.onDone(true);
+    } catch (e) {
+      setError(saveErrorMessage(e));
+    } finally {
+      setBusy(false);
+    }
+  };
+  return (
+    <section className="gm-card" aria-label="Edit site" data-testid="site-edit-form">
+      <SiteFormFields form={form} setForm={setForm} errors={shownErrors(parsed.errors, form, true)} />
+      <div className="gm-lb-actions">
+        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-site">
+          {busy ? 'Saving…' : 'Save changes'}
+        </button>
+        <button type="button" className="gm-btn" onClick={() => props.onDone(false)}>
+          Cancel
+        </button>
+      </div>
+      <ErrorNote message={error} />
+    </section>
+  );
+}
+
+function SiteBody(props: { detail: SiteDetail }) {
+  const { site, reflectors, geometries, installations, inspections, conflicts } = props.detail;
+  const db = useGlintmarkDb();
+  const st = useStore(settings);
+  const nav = useHistory();
+  const [editing, setEditing] = useState(false);
+  const [saved, setSaved] = useState<string | null>(null);
+  const [error, setError] = useState<string | null>(null);
+  const [timeline, setTimeline] = useState<TimelineEntry[] | null>(null);
+  const deleted = site.deletedAtMs !== null;
+
+  useEffect(() => {
+    let live = true;
+    loadSiteTimeline(db, site.id)
+      .then((t) => live && setTimeline(t))
+      .catch((e: unknown) => live && setError(`The history could not be read: ${e instanceof Error ? e.message : String(e)}`));
+    return () => {
+      live = false;
+    };
+  }, [db, props.detail, site.id]);
+
+  const use = (path: string) => {
+    workflow.set({ site: siteInputFromRecord(site) });
+    nav.push(path);
+  };
+  const run = async (op: () => Promise<unknown>, done: string) => {
+    setError(null);
+    setSaved(null);
+    try {
+      await withReopen(db, op);
+      setSaved(done);
+    } catch (e) {
+      setError(saveErrorMessage(e, false));
+    }
+  };
+  const ctx = () => ({ by: writtenBy(st.crewName), expectedRev: site.rev });
+  const del = () => run(() => siteRepo.softDelete(db, site.id, ctx()), `Site ${site.code} deleted on this device`);
+  const undo = () => run(() => siteRepo.undelete(db, site.id, ctx()), `Site ${site.code} restored on this device`);
+
+  return (
+    <>
+      <BackLink to="/logbook">All sites</BackLink>
+      <h1 data-testid="site-title">
+        {site.code} <DemoBadge demo={site.demo} />
+      </h1>
+      {site.name ? <p className="gm-lb-text">{site.name}</p> : null}
+      {deleted ? (
+        <div className="gm-lb-deleted" role="status" data-testid="site-deleted">
+          <p>
+            <b>✕ This site is deleted</b> (with the reflectors, installations and inspections deleted with it). Nothing is lost until you remove
+            it for good: Undo restores them all.
+          </p>
+          <button type="button" className="gm-btn gm-primary" onClick={() => void undo()} data-testid="undo-delete">
+            Undo delete
+          </button>
+        </div>
+      ) : null}
+      {saved ? <SavedNote>{saved}</SavedNote> : null}
+      <ErrorNote message={error} />
+      {conflicts.length ? (
+        <p className="gm-warn" data-testid="site-conflicts">
+          ⚠ {conflicts.length} merge conflict{conflicts.length === 1 ? '' : 's'} about this site; review in Settings.
+        </p>
+      ) : null}
+      {!deleted ? (
+        <div className="gm-lb-actions">
+          <button type="button" className="gm-btn gm-primary" onClick={() => use('/plan')} data-testid="use-site-plan">
+            Use this site → Plan
+          </button>
+          <button type="button" className="gm-btn" onClick={() => use('/passes')} data-testid="use-site-passes">
+            Use this site → Passes
+          </button>
+        </div>
+      ) : null}
+      <p className="gm-note" data-testid="next-pass">
+        Next pass: open Passes with this site to compute it.
+      </p>
+
+      <section className="gm-section" aria-labelledby="details-h">
+        <h2 id="details-h">Site details</h2>
+        {editing ? <SiteEditor
+            site={site}
+            onDone={(ok) => {
+              setEditing(false);
+              setSaved(ok ? 'Saved on this device' : null);
+            }}
+          /> : <SiteDetails site={site} />}
+        {!editing && !deleted ? (
+          <div className="gm-lb-actions">
+            <button type="button" className="gm-btn" onClick={() => setEditing(true)} data-testid="edit-site">
+              Edit site
+            </button>
+            <button type="button" className="gm-btn" onClick={() => void del()} data-testid="delete-site">
+              Delete site
+            </button>
+          </div>
+        ) : null}
+      </section>
+
+      <ReflectorSection site={site} reflectors={reflectors} />
+      <section className="gm-section" aria-labelledby="geo-h">
+        <h2 id="geo-h">Planned geometries ({geometries.length})</h2>
+        <GeometryTable geometries={geometries} reflectors={reflectors} />
+      </section>
+      <section className="gm-section" aria-labelledby="inst-h">
+        <h2 id="inst-h">Installations ({installations.length})</h2>
+        <InstallationList installations={installations} reflectors={reflectors} />
+      </section>
+      <section className="gm-section" aria-labelledby="insp-h">
+        <h2 id="insp-h">Inspections ({inspections.length})</h2>
+        <InspectionList inspections={inspections} reflectors={reflectors} />
+      </section>
+      <section className="gm-section" aria-labelledby="hist-h">
+        <h2 id="hist-h">History</h2>
+        {timeline === null ? <p>Loading history…</p> : <Timeline entries={timeline} />}
+      </section>
+    </>
+  );
+}
+
+function SiteScreen(props: { siteId: string }) {
+  const detail = useSiteDetail(props.siteId);
+  if (detail === undefined) return <p>Loading…</p>;
+  if (detail === null)
+    return (
+      <>
+        <BackLink to="/logbook">All sites</BackLink>
+        <p className="gm-warn" data-testid="site-missing">
+          This site is not stored on this device.
+        </p>
+      </>
+    );
+  return <SiteBody detail={detail} />;
+}
 
 export function SitePage() {
+  const { siteId } = useParams<{ siteId: string }>();
   return (
     <IonPage>
       <IonHeader>
@@ -10,7 +205,7 @@ export function SitePage() {
       </IonHeader>
       <IonContent className="ion-padding">
         <main>
-          <h1 className="gm-label">Site</h1>
+          <SiteScreen key={siteId} siteId={siteId} />
         </main>
       </IonContent>
     </IonPage>

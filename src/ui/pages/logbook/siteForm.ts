@@ -167,3 +167,12 @@ export function findWorkflowSite<S extends { id: string; code: string }>(sites: 
   if (!code) return null;
   return sites.find((x) => x.code.toLowerCase() === code) ?? null;
 }
+
+const META = ['id', 'rev', 'createdAtMs', 'updatedAtMs', 'deletedAtMs'] as const;
+
+/** A stored record's editable fields (RecordMeta left out), to diff against a parsed form. */
+export function withoutMeta<T extends { id: string }>(r: T): Omit<T, (typeof META)[number]> {
+  const copy: Record<string, unknown> = { ...r };
+  for (const k of META) delete copy[k];
+  return copy as Omit<T, (typeof META)[number]>;
+}

@@ -1,0 +1,147 @@
+/** Record an inspection of one reflector: checklist, optional re-measurement, photos; drafted on every change. */
+import { useEffect, useState } from 'react';
+import { Link } from 'react-router-dom';
+import { reflectorRepo, useGlintmarkDb, useSite, type InspectionRecord, type ReflectorRecord } from '../../../data/index.ts';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
+import { workflow } from '../../state/workflow.ts';
+import { BackLink, ErrorNote, SavedNote } from './bits.tsx';
+import { saveErrorMessage } from './errorWords.ts';
+import { shownErrors } from './inputs.tsx';
+import { InspectionFieldset } from './InspectionFieldset.tsx';
+import { checklistSummary, isInspectionForm, newInspectionForm, parseInspectionForm, type InspectionForm } from './inspectionForm.ts';
+import { PendingPhotos } from './Photos.tsx';
+import { createInspection, type SaveOutcome } from './saveRecords.ts';
+import { useFormDraft } from './useFormDraft.ts';
+import { CHECKLIST_LABELS, fmtUtc, writtenBy } from './words.ts';
+
+function Form(props: { reflector: ReflectorRecord }) {
+  const r = props.reflector;
+  const db = useGlintmarkDb();
+  const st = useStore(settings);
+  const wf = useStore(workflow);
+  const site = useSite(r.siteId);
+  const [form, setForm] = useState<InspectionForm>(() => newInspectionForm({ siteId: r.siteId, reflectorId: r.id, crewName: st.crewName, nowMs: Date.now() }));
+  const [tried, setTried] = useState(false);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const [photos, setPhotos] = useState<Partial<Record<string, File>>>({});
+  const [saved, setSaved] = useState<SaveOutcome<InspectionRecord> | null>(null);
+  const draft = useFormDraft(`inspection-form:${r.id}`, isInspectionForm, (v) => setForm(v));
+  const parsed = parseInspectionForm(form);
+  const errors = shownErrors(parsed.errors, form, tried);
+
+  const update = (patch: Partial<InspectionForm>) => {
+    const next = { ...form, ...patch };
+    setForm(next);
+    setError(null);
+    draft.save(next);
+  };
+  const discard = async () => {
+    await draft.clear();
+    setForm(newInspectionForm({ siteId: r.siteId, reflectorId: r.id, crewName: st.crewName, nowMs: Date.now() }));
+  };
+  const save = async () => {
+    setTried(true);
+    setError(null);
+    if (!parsed.fields) {
+      setError('Nothing saved yet: check the marked fields.');
+      return;
+    }
+    setBusy(true);
+    try {
+      const pending = Object.entries(photos).flatMap(([role, blob]) => (blob ? [{ role, blob }] : []));
+      const out = await createInspection(db, parsed.fields, pending, writtenBy(st.crewName, parsed.fields.crew));
+      await draft.clear();
+      setPhotos({});
+      setSaved(out);
+    } catch (e) {
+      setError(saveErrorMessage(e));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  const head = (
+    <>
+      <BackLink to={`/logbook/site/${r.siteId}`}>{`Site ${site?.code ?? ''}`}</BackLink>
+      <h1>
+        Inspect reflector {r.label} · site {site?.code ?? '…'}
+      </h1>
+    </>
+  );
+  if (saved)
+    return (
+      <>
+        {head}
+        <section className="gm-card" data-testid="inspection-saved">
+          <SavedNote />
+          <p>
+            Inspection of {fmtUtc(saved.record.inspectedAtMs)}: {checklistSummary(saved.record.checklist, CHECKLIST_LABELS)}; {saved.record.photoIds.length} photo
+            {saved.record.photoIds.length === 1 ? '' : 's'}.
+          </p>
+          {saved.photoErrors.map((e) => (
+            <p key={e.role} className="gm-error" role="alert" data-testid={`photo-error-${e.role}`}>
+              {e.role}: {e.message}
+            </p>
+          ))}
+          <div className="gm-lb-actions">
+            <Link className="gm-btn gm-lb-linkbtn gm-primary" to={`/logbook/site/${r.siteId}`} data-testid="view-site">
+              View site
+            </Link>
+            <Link className="gm-btn gm-lb-linkbtn" to={`/logbook/inspection/${saved.record.id}`} data-testid="open-inspection">
+              Open this record
+            </Link>
+          </div>
+        </section>
+      </>
+    );
+  return (
+    <>
+      {head}
+      {draft.restoredAtMs !== null ? (
+        <div className="gm-card" role="status" data-testid="draft-restored">
+          <p>Draft restored from {fmtUtc(draft.restoredAtMs)}.</p>
+          <button type="button" className="gm-btn" onClick={() => void discard()} data-testid="discard-draft">
+            Discard draft
+          </button>
+        </div>
+      ) : null}
+      <ErrorNote message={draft.error} testId="draft-error" />
+      <InspectionFieldset form={form} set={update} errors={errors} capture={wf.capture} />
+      <PendingPhotos files={photos} onChange={(role, f) => setPhotos((p) => ({ ...p, [role]: f }))} errors={{}} />
+      <div className="gm-lb-actions">
+        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-inspection">
+          {busy ? 'Saving…' : 'Save inspection'}
+        </button>
+      </div>
+      <ErrorNote message={error} />
+    </>
+  );
+}
+
+export function NewInspection(props: { reflectorId: string }) {
+  const db = useGlintmarkDb();
+  const [reflector, setReflector] = useState<ReflectorRecord | null | undefined>(undefined);
+  useEffect(() => {
+    let live = true;
+    reflectorRepo
+      .get(db, props.reflectorId)
+      .then((r) => live && setReflector(r && r.deletedAtMs === null ? r : null))
+      .catch(() => live && setReflector(null));
+    return () => {
+      live = false;
+    };
+  }, [db, props.reflectorId]);
+  if (reflector === undefined) return <p>Loading…</p>;
+  if (reflector === null)
+    return (
+      <>
+        <BackLink to="/logbook">Logbook</BackLink>
+        <p className="gm-warn" data-testid="reflector-missing">
+          This reflector is not (or no longer) stored on this device.
+        </p>
+      </>
+    );
+  return <Form reflector={reflector} />;
+}

@@ -1,0 +1,85 @@
+/**
+ * The "New site" form, checked in place. "Saved on this device" appears only after siteRepo.create resolved;
+ * a refused save (duplicate code, storage full …) keeps the form and says why beside it.
+ */
+import { useState } from 'react';
+import { Link } from 'react-router-dom';
+import { siteRepo, useGlintmarkDb, withReopen, type SiteRecord } from '../../../data/index.ts';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
+import { ErrorNote, SavedNote } from './bits.tsx';
+import { saveErrorMessage } from './errorWords.ts';
+import { shownErrors } from './inputs.tsx';
+import { EMPTY_SITE_FORM, parseSiteForm, siteFormFromWorkflow, type SiteForm } from './siteForm.ts';
+import { SiteFormFields } from './SiteFormFields.tsx';
+import { workflow } from '../../state/workflow.ts';
+import { writtenBy } from './words.ts';
+
+export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecord) => void; title?: string }) {
+  const db = useGlintmarkDb();
+  const st = useStore(settings);
+  const [form, setForm] = useState<SiteForm>(() => {
+    if (props.initial) return props.initial;
+    const s = workflow.get().site;
+    return s && s.source !== 'logbook' ? siteFormFromWorkflow(s) : EMPTY_SITE_FORM;
+  });
+  const [tried, setTried] = useState(false);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const [codeTaken, setCodeTaken] = useState<string | null>(null);
+  const [saved, setSaved] = useState<SiteRecord | null>(null);
+  const parsed = parseSiteForm(form);
+  const errors = { ...shownErrors(parsed.errors, form, tried), ...(codeTaken && codeTaken === form.code.trim() ? { code: `Code ${codeTaken} is already used by another site on this device` } : {}) };
+
+  const edit = (f: SiteForm) => {
+    setForm(f);
+    setSaved(null);
+    setError(null);
+  };
+  const save = async () => {
+    setTried(true);
+    setSaved(null);
+    if (!parsed.fields) {
+      setError('Check the marked fields.');
+      return;
+    }
+    setBusy(true);
+    setError(null);
+    const fields = parsed.fields;
+    try {
+      const rec = await withReopen(db, () => siteRepo.create(db, fields, { by: writtenBy(st.crewName) }));
+      setSaved(rec);
+      setForm(EMPTY_SITE_FORM);
+      setTried(false);
+      props.onSaved?.(rec);
+    } catch (e) {
+      if (e instanceof Error && e.name === 'DuplicateCodeError') setCodeTaken(fields.code);
+      setError(saveErrorMessage(e));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  return (
+    <section className="gm-card" aria-labelledby="new-site-h" data-testid="new-site-form">
+      <h2 id="new-site-h">{props.title ?? 'New site'}</h2>
+      <SiteFormFields form={form} setForm={edit} errors={errors} />
+      <div className="gm-lb-actions">
+        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-site">
+          {busy ? 'Saving…' : 'Save site'}
+        </button>
+      </div>
+      <ErrorNote message={error} />
+      {saved ? (
+        <div>
+          <SavedNote />
+          <p>
+            <Link to={`/logbook/site/${saved.id}`} data-testid="open-new-site">
+              Open site {saved.code}
+            </Link>
+          </p>
+        </div>
+      ) : null}
+    </section>
+  );
+}

@@ -1,0 +1,110 @@
+/** Add or edit a reflector: label, shape, inner edge, construction, apex and antenna offset (units in every label). */
+import { useState } from 'react';
+import { reflectorRepo, useGlintmarkDb, withReopen, type ReflectorRecord } from '../../../data/index.ts';
+import { NumberField, Segmented } from '../../components/fields.tsx';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
+import { ErrorNote, SavedNote } from './bits.tsx';
+import { saveErrorMessage } from './errorWords.ts';
+import { shownErrors, TextInput } from './inputs.tsx';
+import { parseReflectorForm, reflectorFormFromRecord, type ReflectorForm } from './reflectorForm.ts';
+import { changedFields, withoutMeta } from './siteForm.ts';
+import { writtenBy } from './words.ts';
+
+export function ReflectorEditor(props: {
+  siteId: string;
+  existing?: ReflectorRecord;
+  initial: ReflectorForm;
+  onSaved: (r: ReflectorRecord) => void;
+  onCancel: () => void;
+}) {
+  const db = useGlintmarkDb();
+  const st = useStore(settings);
+  const [form, setForm] = useState<ReflectorForm>(props.existing ? reflectorFormFromRecord(props.existing) : props.initial);
+  const [tried, setTried] = useState(false);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const [saved, setSaved] = useState(false);
+  const parsed = parseReflectorForm(form, props.siteId);
+  const errors = shownErrors(parsed.errors, form, tried);
+  const set = (patch: Partial<ReflectorForm>) => {
+    setForm((f) => ({ ...f, ...patch }));
+    setSaved(false);
+  };
+
+  const save = async () => {
+    setTried(true);
+    if (!parsed.fields) {
+      setError('Check the marked fields.');
+      return;
+    }
+    const fields = parsed.fields;
+    setBusy(true);
+    setError(null);
+    try {
+      const by = writtenBy(st.crewName);
+      const ex = props.existing;
+      const rec = ex
+        ? await withReopen(db, () => reflectorRepo.update(db, ex.id, changedFields(withoutMeta(ex), fields), { by, expectedRev: ex.rev }))
+        : await withReopen(db, () => reflectorRepo.create(db, fields, { by }));
+      setSaved(true);
+      props.onSaved(rec);
+    } catch (e) {
+      setError(saveErrorMessage(e));
+    } finally {
+      setBusy(false);
+    }
+  };
+
+  const n = (k: keyof ReflectorForm, label: string, unit: string, testId: string) => (
+    <NumberField label={label} unit={unit} value={form[k] as string} onChange={(v) => set({ [k]: v })} error={errors[k]} testId={testId} />
+  );
+  return (
+    <section className="gm-card" aria-label={props.existing ? `Edit reflector ${props.existing.label}` : 'New reflector'} data-testid="reflector-form">
+      <h3>{props.existing ? `Edit reflector ${props.existing.label}` : 'New reflector'}</h3>
+      <div className="gm-row">
+        <TextInput label="Label" value={form.label} onChange={(v) => set({ label: v })} error={errors.label} testId="refl-label" />
+        <Segmented label="Shape" value={form.shape} options={[{ value: 'triangular', label: 'Triangular' }, { value: 'square', label: 'Square' }]} onChange={(v) => set({ shape: v })} testId="refl-shape" />
+        {n('edgeM', 'Inner edge', 'm', 'refl-edge')}
+        {n('apexHeightAboveMarkM', 'Apex height above the mark', 'm', 'refl-apex-above-mark')}
+      </div>
+      <fieldset className="gm-lb-fieldset">
+        <legend>Construction</legend>
+        <div className="gm-row">
+          <Segmented label="Panels" value={form.panels} options={[{ value: 'solid', label: 'Solid' }, { value: 'mesh', label: 'Mesh' }]} onChange={(v) => set({ panels: v })} testId="refl-panels" />
+          {form.panels === 'mesh' ? n('meshOpeningMm', 'Mesh opening', 'mm', 'refl-mesh') : null}
+        </div>
+        <TextInput label="Drainage" value={form.drainage} onChange={(v) => set({ drainage: v })} error={errors.drainage} testId="refl-drainage" hint="e.g. three 20 mm holes at the apex" />
+        <TextInput label="Foundation" value={form.foundation} onChange={(v) => set({ foundation: v })} error={errors.foundation} testId="refl-foundation" hint="e.g. concrete pillar 0.6 m deep" />
+      </fieldset>
+      <fieldset className="gm-lb-fieldset">
+        <legend>Surveyed apex position (optional)</legend>
+        <div className="gm-row">
+          {n('apexLatDeg', 'Apex latitude', '° N+', 'refl-apex-lat')}
+          {n('apexLonDeg', 'Apex longitude', '° E+', 'refl-apex-lon')}
+          {n('apexHeightEllM', 'Apex ellipsoidal height', 'm', 'refl-apex-h')}
+        </div>
+      </fieldset>
+      <fieldset className="gm-lb-fieldset">
+        <legend>GNSS antenna reference point offset from the apex (optional)</legend>
+        <div className="gm-row">
+          {n('arpEastM', 'East', 'm', 'refl-arp-e')}
+          {n('arpNorthM', 'North', 'm', 'refl-arp-n')}
+          {n('arpUpM', 'Up', 'm', 'refl-arp-u')}
+        </div>
+      </fieldset>
+      <TextInput label="Notes" value={form.notes} onChange={(v) => set({ notes: v })} error={errors.notes} testId="refl-notes" multiline />
+      <div className="gm-lb-actions">
+        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-reflector">
+          {busy ? 'Saving…' : 'Save reflector'}
+        </button>
+        <button type="button" className="gm-btn" onClick={props.onCancel} data-testid="cancel-reflector">
+          Cancel
+        </button>
+      </div>
+      <ErrorNote message={error} />
+      {saved ? <SavedNote /> : null}
+    </section>
+  );
+}
+

@@ -1,0 +1,255 @@
+/**
+ * Logbook screens in Chromium with a persistent profile, so the records must survive a page reload AND a browser
+ * restart (a new browser on the same user-data folder). The crew's path: type a site, add a reflector, plan an aim,
+ * type the readings on Align (manual entry), record the installation with a photo (a small PNG made here), restore a
+ * draft after a reload mid-typing, edit (a revision in the history), soft delete and Undo, inspect with a photo that
+ * is too large (the record is still saved). Sites are invented ("Marrowby Fen", "Hollin Ridge").
+ */
+import { chromium, type BrowserContext, type Page } from 'playwright-core';
+import { mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { deflateSync } from 'node:zlib';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { BASE_URL, CHROMIUM_ARGS, screenshot } from './browser.ts';
+
+const POLL = { timeout: 15_000, interval: 200 };
+/** "Here" for the distance sort: beside the Marrowby Fen site. */
+const HERE = { latitude: 52.6, longitude: 0.3, accuracy: 4 };
+
+/** CRC-32 (ISO 3309 / ITU-T V.42 polynomial 0xEDB88320), as the PNG chunks need. */
+function crc32(buf: Buffer): number {
+  let c = ~0;
+  for (const b of buf) {
+    c ^= b;
+    for (let k = 0; k < 8; k++) c = c & 1 ? (c >>> 1) ^ 0xedb88320 : c >>> 1;
+  }
+  return ~c >>> 0;
+}
+function chunk(type: string, data: Buffer): Buffer {
+  const len = Buffer.alloc(4);
+  len.writeUInt32BE(data.length);
+  const td = Buffer.concat([Buffer.from(type, 'ascii'), data]);
+  const crc = Buffer.alloc(4);
+  crc.writeUInt32BE(crc32(td));
+  return Buffer.concat([len, td, crc]);
+}
+/** A valid w×h RGB PNG (W3C PNG specification, 2nd ed.): an orange square. */
+function makePng(w: number, h: number): Buffer {
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(w, 0);
+  ihdr.writeUInt32BE(h, 4);
+  ihdr.set([8, 2, 0, 0, 0], 8);
+  const row = Buffer.concat([Buffer.from([0]), Buffer.alloc(w * 3, Buffer.from([230, 120, 20]))]);
+  const raw = Buffer.concat(Array.from({ length: h }, () => row));
+  return Buffer.concat([Buffer.from([137, 80, 78, 71, 13, 10, 26, 10]), chunk('IHDR', ihdr), chunk('IDAT', deflateSync(raw)), chunk('IEND', Buffer.alloc(0))]);
+}
+const PNG = makePng(32, 24);
+/** Over the 8 MB photo limit: a PNG header followed by padding (the size check comes first). */
+const HUGE = Buffer.concat([PNG, Buffer.alloc(8_100_000)]);
+
+let profile: string;
+let ctx: BrowserContext;
+let page: Page;
+const errors: string[] = [];
+
+async function open(): Promise<void> {
+  ctx = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: CHROMIUM_ARGS,
+    viewport: { width: 412, height: 915 },
+    deviceScaleFactor: 1,
+    hasTouch: true,
+  });
+  await ctx.grantPermissions(['geolocation', 'accelerometer', 'gyroscope', 'magnetometer'], { origin: BASE_URL });
+  await ctx.addInitScript(() => {
+    const k = 'glintmark.settings.v1';
+    const cur = JSON.parse(localStorage.getItem(k) ?? '{}');
+    if (!cur.safetyAcknowledgedAtMs) localStorage.setItem(k, JSON.stringify({ ...cur, safetyAcknowledgedAtMs: 1, demoOfferedAtMs: 1, crewName: 'Ann Tester' }));
+  });
+  page = ctx.pages()[0] ?? (await ctx.newPage());
+  page.setDefaultTimeout(10_000);
+  page.on('pageerror', (e) => errors.push(e.message));
+  const cdp = await ctx.newCDPSession(page);
+  await cdp.send('Emulation.setGeolocationOverride', HERE);
+}
+
+/** The visible element with this test id (Ionic keeps earlier pages in the DOM, hidden). */
+const el = (id: string) => page.locator(`[data-testid="${id}"]:visible`).first();
+const txt = (id: string) => el(id).innerText();
+const fillIn = (id: string, v: string) => el(id).fill(v);
+const click = (id: string) => el(id).click();
+const choose = (id: string, value: string) => page.locator(`[data-testid="${id}"]:visible button[data-value="${value}"]`).first().click();
+
+beforeAll(async () => {
+  profile = mkdtempSync(join(tmpdir(), 'glintmark-profile-'));
+  await open();
+});
+afterAll(async () => {
+  await ctx?.close();
+  rmSync(profile, { recursive: true, force: true });
+});
+
+describe('Logbook: durable records', () => {
+  it('creates a site with typed coordinates, checked in place, and refuses a duplicate code', async () => {
+    await page.goto(BASE_URL + '/logbook');
+    await expect.poll(() => txt('no-sites'), POLL).toMatch(/No sites yet/);
+    await screenshot(page, 'logbook-empty');
+    await click('new-site');
+    await fillIn('site-code', 'MF-01');
+    await fillIn('site-name', 'Marrowby Fen north bank');
+    await fillIn('site-lat', '95');
+    await fillIn('site-lon', '0.31');
+    await fillIn('site-height', '45.2');
+    await fillIn('site-notes', '<b>gate key</b> at the farm');
+    expect(await txt('site-lat-error')).toBe('Latitude must be in [-90, 90]°, got 95');
+    await screenshot(page, 'logbook-new-site-invalid');
+    await fillIn('site-lat', '52.61');
+    await click('save-site');
+    await expect.poll(() => txt('saved'), POLL).toMatch(/Saved on this device/);
+    await expect.poll(() => txt('site-row-MF-01'), POLL).toMatch(/0 reflectors/);
+    expect(await txt('site-row-MF-01')).toMatch(/never visited/);
+    await screenshot(page, 'logbook-site-saved');
+
+    await fillIn('site-code', 'mf-01');
+    await fillIn('site-lat', '51.0');
+    await fillIn('site-lon', '0.0');
+    await fillIn('site-height', '80');
+    await click('save-site');
+    await expect.poll(() => txt('save-error'), POLL).toMatch(/already used by another site/);
+    expect(await page.locator('[data-testid="saved"]:visible').count()).toBe(0);
+    await fillIn('site-code', 'HR-1');
+    await fillIn('site-name', 'Hollin Ridge');
+    await click('save-site');
+    await expect.poll(() => page.locator('[data-testid^="site-row-"]:visible').count(), POLL).toBe(2);
+  });
+
+  it('shows record text as text, and adds a reflector on the site screen', async () => {
+    await click('site-row-MF-01');
+    await page.waitForURL(/\/logbook\/site\//);
+    await expect.poll(() => txt('site-notes-value'), POLL).toBe('<b>gate key</b> at the farm');
+    expect(await el('site-notes-value').locator('b').count()).toBe(0);
+    await click('add-reflector');
+    expect(await el('refl-label').inputValue()).toBe('A');
+    await fillIn('refl-edge', '1.2');
+    await fillIn('refl-apex-above-mark', '0.9');
+    await fillIn('refl-drainage', 'three 20 mm holes at the apex');
+    await click('save-reflector');
+    await expect.poll(() => txt('reflector-A'), POLL).toMatch(/inner edge 1.20 m/);
+    await screenshot(page, 'logbook-site');
+  });
+
+  it('takes the plan and typed Align readings into the installation form, with a photo', async () => {
+    await click('use-site-plan');
+    await page.waitForURL(/\/plan$/);
+    await fillIn('incidence-0', '40');
+    await fillIn('heading-0', '190');
+    await choose('look-0', 'right');
+    await expect.poll(() => txt('result-azimuth'), POLL).toContain('100.0');
+    await click('go-align');
+    await page.waitForURL(/\/align$/);
+    await fillIn('manual-azimuth', '100.3');
+    await fillIn('manual-tilt', '14.6');
+    await fillIn('manual-roll', '0.2');
+    await click('manual-save');
+    await click('go-logbook');
+    await page.waitForURL(/\/logbook\/new-installation$/);
+    await expect.poll(() => el('pick-reflector').inputValue().catch(() => ''), POLL).not.toBe('');
+    expect(await el('inst-az').inputValue()).toBe('100.30');
+    expect(await el('inst-tilt').inputValue()).toBe('14.60');
+    expect(await el('inst-planned-az').inputValue()).toBe('100.00');
+    expect(await el('inst-crew').inputValue()).toBe('Ann Tester');
+    expect(await txt('planned-geometries')).toMatch(/incidence 40°, heading 190° true, right-looking/);
+    await el('photo-input-boresight').setInputFiles({ name: 'boresight.png', mimeType: 'image/png', buffer: PNG });
+    await expect.poll(() => el('photo-slot-boresight').locator('img').count(), POLL).toBe(1);
+    await screenshot(page, 'logbook-installation-form');
+  });
+
+  it('restores the draft after a reload mid-typing, then saves and shows "Saved on this device" only after the write', async () => {
+    await fillIn('inst-notes', 'fence on the north side');
+    await page.waitForTimeout(800);
+    await page.reload();
+    await expect.poll(() => txt('draft-restored'), POLL).toMatch(/Draft restored from \d{4}-\d\d-\d\d \d\d:\d\d UTC/);
+    expect(await el('inst-notes').inputValue()).toContain('fence on the north side');
+    expect(await el('inst-az').inputValue()).toBe('100.30');
+    await screenshot(page, 'logbook-draft-restored');
+    expect(await page.locator('[data-testid="saved"]:visible').count()).toBe(0);
+    await el('photo-input-boresight').setInputFiles({ name: 'boresight.png', mimeType: 'image/png', buffer: PNG });
+    await click('save-installation');
+    await expect.poll(() => txt('installation-saved'), POLL).toMatch(/Saved on this device[\s\S]*1 photo, 1 planned geometry/);
+    await screenshot(page, 'logbook-installation-saved');
+    await click('view-site');
+    await page.waitForURL(/\/logbook\/site\//);
+    await expect.poll(() => txt('installation-row'), POLL).toMatch(/Azimuth 100.30° true \(planned 100.00°\)[\s\S]*1 photo/);
+    expect(await txt('geometry-list')).toMatch(/incidence 40.0°, heading 190.0° true, right-looking, C band/);
+    expect(await txt('timeline')).toMatch(/Recorded installation of reflector A/);
+  });
+
+  it('keeps the records through a page reload and a browser restart on the same profile', async () => {
+    await page.reload();
+    await expect.poll(() => txt('installation-row'), POLL).toMatch(/Azimuth 100.30°/);
+    await ctx.close();
+    await open();
+    await page.goto(BASE_URL + '/logbook');
+    await expect.poll(() => txt('site-row-MF-01'), POLL).toMatch(/1 reflector · 1 installation/);
+    expect(await txt('site-row-MF-01')).toMatch(/Last visit: today/);
+    await screenshot(page, 'logbook-after-restart');
+    await choose('site-sort', 'distance');
+    await expect.poll(() => txt('distance-from'), POLL).toMatch(/Distances from your GPS position/);
+    const codes = await page.locator('[data-testid^="site-row-"]:visible .gm-lb-code').allInnerTexts();
+    expect(codes).toEqual(['MF-01', 'HR-1']);
+    await fillIn('site-search', 'hollin');
+    await expect.poll(() => page.locator('[data-testid^="site-row-"]:visible').count(), POLL).toBe(1);
+    await screenshot(page, 'logbook-list-search');
+    await fillIn('site-search', '');
+  });
+
+  it('edits the installation into a new revision shown in its history; delete and Undo', async () => {
+    await click('site-row-MF-01');
+    await click('installation-row');
+    await page.waitForURL(/\/logbook\/installation\//);
+    await expect.poll(() => el('inst-az').inputValue(), POLL).toBe('100.3');
+    expect(await page.locator('[data-testid="stored-photo"]:visible').count()).toBe(1);
+    await fillIn('inst-az', '100.8');
+    await click('save-installation');
+    await expect.poll(() => txt('saved'), POLL).toMatch(/Saved on this device/);
+    await expect.poll(() => txt('record-history'), POLL).toMatch(/Edited this installation[\s\S]*measured azimuth \(° true\): 100.3 → 100.8/);
+    expect(await txt('record-history')).toMatch(/by Ann Tester/);
+    await screenshot(page, 'logbook-installation-history');
+    await click('delete-installation');
+    await expect.poll(() => txt('installation-deleted'), POLL).toMatch(/deleted/);
+    await click('undo-delete');
+    await expect.poll(() => page.locator('[data-testid="installation-deleted"]:visible').count(), POLL).toBe(0);
+    await expect.poll(() => txt('record-history'), POLL).toMatch(/Restored this installation[\s\S]*Deleted this installation/);
+  });
+
+  it('soft-deletes the site with its children and restores them all with Undo', async () => {
+    await click('back');
+    await page.waitForURL(/\/logbook\/site\//);
+    await click('delete-site');
+    await expect.poll(() => txt('site-deleted'), POLL).toMatch(/This site is deleted/);
+    await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(0);
+    await screenshot(page, 'logbook-site-deleted');
+    await click('undo-delete');
+    await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(1);
+    await expect.poll(() => txt('timeline'), POLL).toMatch(/Restored site MF-01[\s\S]*Deleted site MF-01[\s\S]*With it: reflector A/);
+  });
+
+  it('records an inspection; a photo over the limit is refused in words and the record is kept', async () => {
+    await click('inspect-A');
+    await page.waitForURL(/\/logbook\/inspection\/new\//);
+    await choose('check-debris', 'issue');
+    await choose('check-damage', 'ok');
+    await fillIn('insp-notes', 'leaves in the corner, cleared');
+    await el('photo-input-boresight').setInputFiles({ name: 'big.png', mimeType: 'image/png', buffer: HUGE });
+    await screenshot(page, 'logbook-inspection-form');
+    await click('save-inspection');
+    await expect.poll(() => txt('inspection-saved'), POLL).toMatch(/Saved on this device[\s\S]*1 issue: debris in the corner/);
+    expect(await txt('photo-error-boresight')).toMatch(/The photo is 8\.1 MB, more than the 8\.0 MB limit; it was not saved \(the record itself is kept\)/);
+    await screenshot(page, 'logbook-inspection-photo-too-large');
+    await click('view-site');
+    await expect.poll(() => txt('inspection-row'), POLL).toMatch(/1 issue: debris in the corner/);
+    expect(errors).toEqual([]);
+  });
+});
