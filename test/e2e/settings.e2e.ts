@@ -113,6 +113,7 @@ describe('Settings screen', () => {
     expect(doc.tables.sites).toHaveLength(2);
     await expect.poll(() => text(page, 'backup-message')).toMatch(/^✓ Backup saved to your browser's downloads/);
     await expect.poll(() => text(page, 'last-backup')).toMatch(/^✓ Last backup saved .* \(less than a day ago\)\.$/);
+    await expect.poll(() => el(page, 'backup-reminder').count()).toBe(0); // backed up today: the banner goes
     await shot(page, 'download-backup', 'settings-backup-saved');
 
     // Damaged backups: the data layer's plain message, and the database exactly as it was.

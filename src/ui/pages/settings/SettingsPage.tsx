@@ -25,7 +25,7 @@ export function SettingsPage() {
           <p data-testid="privacy">
             Nothing leaves this phone unless you export or share it. Glintmark has no account and sends your records nowhere.
           </p>
-          <BackupReminder onSaved={changed} />
+          <BackupReminder onSaved={changed} refreshKey={refreshKey} />
           <PreferencesSection />
           <StorageSection refreshKey={refreshKey} />
           <BackupSection onChanged={changed} />
