@@ -146,6 +146,18 @@ describe('Settings screen', () => {
     expect(await text(page, 'merge-row-sites')).toBe('Sites: 0 added · 0 updated · 2 unchanged · 0 newer here · 0 conflicts');
     await shot(page, 'merge-report', 'settings-merged');
 
+    // The same revision edited on another phone: reported as a conflict, listed for review, then marked resolved.
+    const edited = JSON.parse(backup.text) as { tables: { sites: { code: string; notes: string }[] } };
+    edited.tables.sites.find((x) => x.code === 'MF-01')!.notes = 'gate moved 20 m east';
+    await el(page, 'merge-file').setInputFiles(file('other-phone.json', 'application/json', JSON.stringify(edited)));
+    await el(page, 'merge-go').click();
+    await expect.poll(() => text(page, 'merge-conflicts')).toMatch(/^site [0-9a-f-]{36}: revision 1 differs between the phones; the local version is kept$/);
+    await el(page, 'conflict-0').waitFor();
+    expect(await text(page, 'conflict-0')).toMatch(/site MF-01/);
+    await shot(page, 'conflict-0', 'settings-conflict');
+    await el(page, 'resolve-conflict-0').click();
+    await expect.poll(() => el(page, 'conflicts').count()).toBe(0);
+
     // GeoJSON export: a FeatureCollection with [longitude, latitude, height].
     const geo = await download(page, 'export-sites-geojson');
     expect(geo.name).toMatch(/^glintmark-sites-\d{8}-\d{4}Z\.geojson$/);

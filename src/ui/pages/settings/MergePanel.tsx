@@ -30,7 +30,7 @@ function MergeReportView(props: { report: MergeReport }) {
       </ul>
       {conflicts.length ? (
         <>
-          <p className="gm-warn">⚠ Conflicts (both versions are kept; review them in the Logbook):</p>
+          <p className="gm-warn">⚠ Conflicts (both versions are kept; review them under "Merge conflicts to review"):</p>
           <ul className="gm-settings-list" data-testid="merge-conflicts">
             {conflicts.map((c, i) => (
               <li key={i}>{c}</li>

@@ -1,8 +1,9 @@
-/** Settings: preferences, storage, backup (download, restore, merge), exchange (exports, site import), demo data. */
+/** Settings: preferences, storage, backup (download, restore, merge), open merge conflicts, exchange (exports, site import), demo data. */
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
 import { useCallback, useState } from 'react';
 import { BackupReminder } from './BackupReminder.tsx';
 import { BackupSection } from './BackupSection.tsx';
+import { ConflictsSection } from './ConflictsSection.tsx';
 import { DemoSection } from './DemoSection.tsx';
 import { ExchangeSection } from './ExchangeSection.tsx';
 import { PreferencesSection } from './PreferencesSection.tsx';
@@ -29,6 +30,7 @@ export function SettingsPage() {
           <PreferencesSection />
           <StorageSection refreshKey={refreshKey} />
           <BackupSection onChanged={changed} />
+          <ConflictsSection />
           <ExchangeSection onChanged={changed} />
           <DemoSection onChanged={changed} />
         </main>
