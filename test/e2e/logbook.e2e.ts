@@ -11,6 +11,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { deflateSync } from 'node:zlib';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { seriousViolations } from './a11y.ts';
 import { BASE_URL, CHROMIUM_ARGS, screenshot } from './browser.ts';
 
 const POLL = { timeout: 15_000, interval: 200 };
@@ -80,6 +81,16 @@ const el = (id: string) => page.locator(`[data-testid="${id}"]:visible`).first()
 const txt = (id: string) => el(id).innerText();
 const fillIn = (id: string, v: string) => el(id).fill(v);
 const click = (id: string) => el(id).click();
+/** Screenshot with the element of this test id scrolled into view (Ionic scrolls inside its content, not the page). */
+async function shot(name: string, scrollTo?: string): Promise<void> {
+  if (scrollTo) await el(scrollTo).scrollIntoViewIfNeeded();
+  await screenshot(page, name);
+}
+/** axe-core: no serious or critical WCAG 2.1 A/AA violation on the screen as it stands. */
+async function expectAccessible(): Promise<void> {
+  const v = await seriousViolations(page);
+  expect(v, JSON.stringify(v, null, 1)).toEqual([]);
+}
 const choose = (id: string, value: string) => page.locator(`[data-testid="${id}"]:visible button[data-value="${value}"]`).first().click();
 
 beforeAll(async () => {
@@ -97,6 +108,14 @@ describe('Logbook: durable records', () => {
     await expect.poll(() => txt('no-sites'), POLL).toMatch(/No sites yet/);
     await screenshot(page, 'logbook-empty');
     await click('new-site');
+    // Position from the (emulated) phone GNSS, with its accuracy and source; typing over it makes it typed.
+    await click('site-gps');
+    await expect.poll(() => el('site-lat').inputValue(), POLL).toBe('52.6000000');
+    expect(await el('site-accuracy').inputValue()).toBe('4.0');
+    expect(await el('site-source').locator('button[aria-pressed="true"]').innerText()).toBe('Phone GNSS');
+    expect(await txt('site-gps-quality')).toMatch(/Position good \(±4\.0 m\)/);
+    await shot('logbook-new-site-gps', 'site-gps');
+    await fillIn('site-accuracy', '');
     await fillIn('site-code', 'MF-01');
     await fillIn('site-name', 'Marrowby Fen north bank');
     await fillIn('site-lat', '95');
@@ -104,13 +123,15 @@ describe('Logbook: durable records', () => {
     await fillIn('site-height', '45.2');
     await fillIn('site-notes', '<b>gate key</b> at the farm');
     expect(await txt('site-lat-error')).toBe('Latitude must be in [-90, 90]°, got 95');
-    await screenshot(page, 'logbook-new-site-invalid');
+    await shot('logbook-new-site-invalid', 'site-lat');
+    await expectAccessible();
     await fillIn('site-lat', '52.61');
+    expect(await el('site-source').locator('button[aria-pressed="true"]').innerText()).toBe('Typed');
     await click('save-site');
     await expect.poll(() => txt('saved'), POLL).toMatch(/Saved on this device/);
     await expect.poll(() => txt('site-row-MF-01'), POLL).toMatch(/0 reflectors/);
     expect(await txt('site-row-MF-01')).toMatch(/never visited/);
-    await screenshot(page, 'logbook-site-saved');
+    await shot('logbook-site-saved', 'saved');
 
     await fillIn('site-code', 'mf-01');
     await fillIn('site-lat', '51.0');
@@ -137,7 +158,8 @@ describe('Logbook: durable records', () => {
     await fillIn('refl-drainage', 'three 20 mm holes at the apex');
     await click('save-reflector');
     await expect.poll(() => txt('reflector-A'), POLL).toMatch(/inner edge 1.20 m/);
-    await screenshot(page, 'logbook-site');
+    await shot('logbook-site', 'reflector-A');
+    await expectAccessible();
   });
 
   it('takes the plan and typed Align readings into the installation form, with a photo', async () => {
@@ -163,7 +185,9 @@ describe('Logbook: durable records', () => {
     expect(await txt('planned-geometries')).toMatch(/incidence 40°, heading 190° true, right-looking/);
     await el('photo-input-boresight').setInputFiles({ name: 'boresight.png', mimeType: 'image/png', buffer: PNG });
     await expect.poll(() => el('photo-slot-boresight').locator('img').count(), POLL).toBe(1);
-    await screenshot(page, 'logbook-installation-form');
+    await shot('logbook-installation-form', 'pick-site');
+    await expectAccessible();
+    await shot('logbook-installation-photos', 'photo-slot-boresight');
   });
 
   it('restores the draft after a reload mid-typing, then saves and shows "Saved on this device" only after the write', async () => {
@@ -173,7 +197,7 @@ describe('Logbook: durable records', () => {
     await expect.poll(() => txt('draft-restored'), POLL).toMatch(/Draft restored from \d{4}-\d\d-\d\d \d\d:\d\d UTC/);
     expect(await el('inst-notes').inputValue()).toContain('fence on the north side');
     expect(await el('inst-az').inputValue()).toBe('100.30');
-    await screenshot(page, 'logbook-draft-restored');
+    await shot('logbook-draft-restored', 'draft-restored');
     expect(await page.locator('[data-testid="saved"]:visible').count()).toBe(0);
     await el('photo-input-boresight').setInputFiles({ name: 'boresight.png', mimeType: 'image/png', buffer: PNG });
     await click('save-installation');
@@ -210,13 +234,14 @@ describe('Logbook: durable records', () => {
     await click('installation-row');
     await page.waitForURL(/\/logbook\/installation\//);
     await expect.poll(() => el('inst-az').inputValue(), POLL).toBe('100.3');
-    expect(await page.locator('[data-testid="stored-photo"]:visible').count()).toBe(1);
+    await expect.poll(() => page.locator('[data-testid="stored-photo"]:visible').count(), POLL).toBe(1);
     await fillIn('inst-az', '100.8');
     await click('save-installation');
     await expect.poll(() => txt('saved'), POLL).toMatch(/Saved on this device/);
     await expect.poll(() => txt('record-history'), POLL).toMatch(/Edited this installation[\s\S]*measured azimuth \(° true\): 100.3 → 100.8/);
     expect(await txt('record-history')).toMatch(/by Ann Tester/);
-    await screenshot(page, 'logbook-installation-history');
+    await shot('logbook-installation-history', 'record-history');
+    await expectAccessible();
     await click('delete-installation');
     await expect.poll(() => txt('installation-deleted'), POLL).toMatch(/deleted/);
     await click('undo-delete');
@@ -230,10 +255,11 @@ describe('Logbook: durable records', () => {
     await click('delete-site');
     await expect.poll(() => txt('site-deleted'), POLL).toMatch(/This site is deleted/);
     await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(0);
-    await screenshot(page, 'logbook-site-deleted');
+    await shot('logbook-site-deleted', 'site-deleted');
     await click('undo-delete');
     await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(1);
     await expect.poll(() => txt('timeline'), POLL).toMatch(/Restored site MF-01[\s\S]*Deleted site MF-01[\s\S]*With it: reflector A/);
+    await shot('logbook-site-timeline', 'timeline');
   });
 
   it('records an inspection; a photo over the limit is refused in words and the record is kept', async () => {
@@ -243,11 +269,12 @@ describe('Logbook: durable records', () => {
     await choose('check-damage', 'ok');
     await fillIn('insp-notes', 'leaves in the corner, cleared');
     await el('photo-input-boresight').setInputFiles({ name: 'big.png', mimeType: 'image/png', buffer: HUGE });
-    await screenshot(page, 'logbook-inspection-form');
+    await shot('logbook-inspection-form', 'checklist');
+    await expectAccessible();
     await click('save-inspection');
     await expect.poll(() => txt('inspection-saved'), POLL).toMatch(/Saved on this device[\s\S]*1 issue: debris in the corner/);
-    expect(await txt('photo-error-boresight')).toMatch(/The photo is 8\.1 MB, more than the 8\.0 MB limit; it was not saved \(the record itself is kept\)/);
-    await screenshot(page, 'logbook-inspection-photo-too-large');
+    expect(await txt('photo-error-boresight')).toMatch(/^Along the boresight: The photo is 8\.1 MB, more than the 8\.0 MB limit; it was not saved \(the record itself is kept\)/);
+    await shot('logbook-inspection-photo-too-large', 'inspection-saved');
     await click('view-site');
     await expect.poll(() => txt('inspection-row'), POLL).toMatch(/1 issue: debris in the corner/);
     expect(errors).toEqual([]);

@@ -103,6 +103,36 @@ describe('installation form', () => {
     const again = parseInstallationForm(installationFormFromRecord(rec)).fields!;
     expect(changedFields(p.fields!, again)).toEqual({});
   });
+  it('round-trips any stored figures exactly, milliseconds included (property), so editing notes changes nothing else', () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 0, max: 359.999999, noNaN: true }),
+        fc.double({ min: -90, max: 90, noNaN: true }),
+        fc.double({ min: -179.999999, max: 180, noNaN: true }),
+        fc.oneof(fc.constant(null), fc.double({ min: -30, max: 30, noNaN: true })),
+        fc.integer({ min: 0, max: 4_000_000_000_000 }),
+        fc.record({ latDeg: fc.double({ min: -90, max: 90, noNaN: true }), lonDeg: fc.double({ min: -180, max: 179.999, noNaN: true }), accuracyM: fc.double({ min: 0, max: 500, noNaN: true }), atMs: fc.integer({ min: 0, max: 4_000_000_000_000 }) }),
+        (az, tilt, roll, decl, atMs, fix) => {
+          const stored = {
+            ...parseInstallationForm(installationFormFromWorkflow(WF, { crewName: 'Ann', nowMs: T0_MS, ...IDS })).fields!,
+            measuredAzimuthDeg: az,
+            measuredTiltDeg: tilt,
+            measuredRollDeg: roll,
+            azimuthMethod: 'other-instrument' as const,
+            declinationDeg: decl,
+            declinationModel: decl === null ? null : 'WMM2025',
+            installedAtMs: atMs,
+            fix,
+          };
+          const rec = { id: IDS.reflectorId, rev: 1, createdAtMs: T0_MS, updatedAtMs: T0_MS, deletedAtMs: null, ...stored, geometryIds: [], photoIds: [] };
+          const again = parseInstallationForm(installationFormFromRecord(rec));
+          expect(again.errors).toEqual({});
+          expect(changedFields(stored, again.fields!)).toEqual({});
+        },
+      ),
+      { numRuns: 200 },
+    );
+  });
   it('accepts a stored draft only with the current shape', () => {
     const f = installationFormFromWorkflow(WF, { crewName: '', nowMs: T0_MS });
     expect(isInstallationForm(JSON.parse(JSON.stringify(f)))).toBe(true);

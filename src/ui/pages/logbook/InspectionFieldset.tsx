@@ -47,10 +47,8 @@ export function InspectionFieldset(props: { form: InspectionForm; set: (patch: P
           {n('rollDeg', 'Roll', '°', 'insp-roll')}
         </div>
       </fieldset>
-      <div className="gm-row">
-        <TextInput label="Inspected at (UTC)" value={form.inspectedAt} onChange={(v) => set({ inspectedAt: v })} error={errors.inspectedAt} testId="insp-at" />
-        <TextInput label="Crew (names, separated by commas)" value={form.crew} onChange={(v) => set({ crew: v })} error={errors.crew} testId="insp-crew" />
-      </div>
+      <TextInput label="Inspected at (UTC)" value={form.inspectedAt} onChange={(v) => set({ inspectedAt: v })} error={errors.inspectedAt} testId="insp-at" hint="e.g. 2026-06-15T10:00Z" />
+      <TextInput label="Crew (names, separated by commas)" value={form.crew} onChange={(v) => set({ crew: v })} error={errors.crew} testId="insp-crew" />
       <TextInput label="Notes" value={form.notes} onChange={(v) => set({ notes: v })} error={errors.notes} testId="insp-notes" multiline />
     </>
   );

@@ -62,13 +62,11 @@ export function InstallationFieldset(props: { form: InstallationForm; set: (patc
           {n('fixLatDeg', 'Latitude', '° N+', 'inst-fix-lat')}
           {n('fixLonDeg', 'Longitude', '° E+', 'inst-fix-lon')}
           {n('fixAccuracyM', 'Accuracy', 'm', 'inst-fix-acc')}
-          <TextInput label="Fix time (UTC)" value={form.fixAt} onChange={(v) => set({ fixAt: v })} error={errors.fixAt} testId="inst-fix-at" />
         </div>
+        <TextInput label="Fix time (UTC)" value={form.fixAt} onChange={(v) => set({ fixAt: v })} error={errors.fixAt} testId="inst-fix-at" />
       </fieldset>
-      <div className="gm-row">
-        <TextInput label="Installed at (UTC)" value={form.installedAt} onChange={(v) => set({ installedAt: v })} error={errors.installedAt} testId="inst-installed-at" hint="e.g. 2026-06-15T10:00Z" />
-        <TextInput label="Crew (names, separated by commas)" value={form.crew} onChange={(v) => set({ crew: v })} error={errors.crew} testId="inst-crew" />
-      </div>
+      <TextInput label="Installed at (UTC)" value={form.installedAt} onChange={(v) => set({ installedAt: v })} error={errors.installedAt} testId="inst-installed-at" hint="e.g. 2026-06-15T10:00Z" />
+      <TextInput label="Crew (names, separated by commas)" value={form.crew} onChange={(v) => set({ crew: v })} error={errors.crew} testId="inst-crew" />
       <TextInput label="Notes" value={form.notes} onChange={(v) => set({ notes: v })} error={errors.notes} testId="inst-notes" multiline />
     </>
   );

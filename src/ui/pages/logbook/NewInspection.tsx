@@ -13,7 +13,7 @@ import { checklistSummary, isInspectionForm, newInspectionForm, parseInspectionF
 import { PendingPhotos } from './Photos.tsx';
 import { createInspection, type SaveOutcome } from './saveRecords.ts';
 import { useFormDraft } from './useFormDraft.ts';
-import { CHECKLIST_LABELS, fmtUtc, writtenBy } from './words.ts';
+import { CHECKLIST_LABELS, fmtUtc, photoRoleLabel, writtenBy } from './words.ts';
 
 function Form(props: { reflector: ReflectorRecord }) {
   const r = props.reflector;
@@ -82,7 +82,7 @@ function Form(props: { reflector: ReflectorRecord }) {
           </p>
           {saved.photoErrors.map((e) => (
             <p key={e.role} className="gm-error" role="alert" data-testid={`photo-error-${e.role}`}>
-              {e.role}: {e.message}
+              {photoRoleLabel(e.role)}: {e.message}
             </p>
           ))}
           <div className="gm-lb-actions">

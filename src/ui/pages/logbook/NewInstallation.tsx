@@ -22,7 +22,7 @@ import { createInstallation, type SaveOutcome } from './saveRecords.ts';
 import { SiteReflectorPicker } from './SiteReflectorPicker.tsx';
 import { findWorkflowSite } from './siteForm.ts';
 import { useFormDraft } from './useFormDraft.ts';
-import { fmtUtc, writtenBy } from './words.ts';
+import { fmtUtc, photoRoleLabel, writtenBy } from './words.ts';
 
 export const INSTALLATION_DRAFT_KEY = 'installation-form';
 
@@ -43,7 +43,7 @@ function SavedPanel(props: { out: SaveOutcome<InstallationRecord>; geometryNotes
       </p>
       {photoErrors.map((e) => (
         <p key={e.role} className="gm-error" role="alert" data-testid={`photo-error-${e.role}`}>
-          {e.role}: {e.message}
+          {photoRoleLabel(e.role)}: {e.message}
         </p>
       ))}
       {props.geometryNotes.map((t, i) => (

@@ -16,7 +16,7 @@ import {
   type PhotoRecord,
 } from '../../../data/index.ts';
 import { saveErrorMessage } from './errorWords.ts';
-import { PHOTO_ROLE_WORDS } from './words.ts';
+import { photoRoleLabel } from './words.ts';
 
 /** An object URL for a blob, revoked when the blob changes or the component goes away. */
 function useObjectUrl(blob: Blob | undefined): string | null {
@@ -38,15 +38,15 @@ function Thumb(props: { blob: Blob | undefined; alt: string }) {
   return url ? <img src={url} alt={props.alt} /> : null;
 }
 
-function CameraInput(props: { role: string; onFile: (f: File | undefined) => void; label: string }) {
+/** A native camera input, visually replaced by a large button-like label (the input stays focusable). */
+function CameraInput(props: { role: string; onFile: (f: File | undefined) => void; label: string; action: string }) {
   const id = useId();
   return (
     <>
-      <label htmlFor={id} className="gm-label">
-        {props.label}
-      </label>
+      <span className="gm-label">{props.label}</span>
       <input
         id={id}
+        className="gm-lb-file"
         type="file"
         accept="image/*"
         capture="environment"
@@ -56,6 +56,10 @@ function CameraInput(props: { role: string; onFile: (f: File | undefined) => voi
           e.target.value = '';
         }}
       />
+      <label htmlFor={id} className="gm-btn gm-lb-camera">
+        {props.action}
+        <span className="gm-lb-sr"> ({props.label})</span>
+      </label>
     </>
   );
 }
@@ -79,7 +83,7 @@ function StorageWarning() {
   ) : null;
 }
 
-const roleLabel = (role: string) => PHOTO_ROLE_WORDS[role] ?? role;
+const roleLabel = photoRoleLabel;
 
 /** Pictures chosen before the record exists (kept in memory, not in the draft). */
 export function PendingPhotos(props: { files: Partial<Record<string, File>>; onChange: (role: string, f: File | undefined) => void; errors: Partial<Record<string, string>> }) {
@@ -91,11 +95,11 @@ export function PendingPhotos(props: { files: Partial<Record<string, File>>; onC
       <div className="gm-lb-photos">
         {SUGGESTED_PHOTO_ROLES.map((role) => (
           <div key={role} className="gm-lb-photo" data-testid={`photo-slot-${role}`}>
-            <CameraInput role={role} label={roleLabel(role)} onFile={(f) => props.onChange(role, f)} />
+            <CameraInput role={role} label={roleLabel(role)} action={props.files[role] ? 'Retake' : 'Take photo'} onFile={(f) => props.onChange(role, f)} />
             <Thumb blob={props.files[role]} alt={`${roleLabel(role)} (not saved yet)`} />
             {props.files[role] ? (
               <button type="button" className="gm-btn" onClick={() => props.onChange(role, undefined)}>
-                Drop this photo
+                Drop it
               </button>
             ) : null}
             {props.errors[role] ? (
@@ -155,7 +159,7 @@ export function StoredPhotos(props: { owner: PhotoOwner; by: string; disabled: b
         <div className="gm-lb-photos">
           {SUGGESTED_PHOTO_ROLES.map((role) => (
             <div key={role} className="gm-lb-photo" data-testid={`photo-slot-${role}`}>
-              <CameraInput role={role} label={`Add: ${roleLabel(role)}`} onFile={(f) => add(role, f)} />
+              <CameraInput role={role} label={roleLabel(role)} action="Add photo" onFile={(f) => add(role, f)} />
               {note[role] ? (
                 <p className={note[role].ok ? 'gm-okt' : 'gm-error'} role={note[role].ok ? 'status' : 'alert'} data-testid={`photo-note-${role}`}>
                   {note[role].text}

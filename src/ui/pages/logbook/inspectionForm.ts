@@ -13,7 +13,7 @@ import {
 import { fmtNum } from '../../format.ts';
 import type { Capture } from '../../state/workflow.ts';
 import { note, num, RANGES, utcTime, wrapRollDeg, type FieldErrors } from './parse.ts';
-import { isoSecondsUtc, parseCrew } from './words.ts';
+import { isoExactUtc, isoSecondsUtc, parseCrew } from './words.ts';
 
 export interface InspectionForm {
   siteId: string;
@@ -69,11 +69,11 @@ export function applyCaptureToInspection(f: InspectionForm, c: Capture): Inspect
 }
 
 export function inspectionFormFromRecord(r: InspectionRecord): InspectionForm {
-  const n = (x: number | undefined) => (x === undefined ? '' : String(Number(x.toFixed(6))));
+  const n = (x: number | undefined) => (x === undefined ? '' : String(x));
   return {
     siteId: r.siteId,
     reflectorId: r.reflectorId,
-    inspectedAt: isoSecondsUtc(r.inspectedAtMs),
+    inspectedAt: isoExactUtc(r.inspectedAtMs),
     checklist: { ...r.checklist },
     azimuthDeg: n(r.remeasured?.azimuthDeg),
     tiltDeg: n(r.remeasured?.tiltDeg),

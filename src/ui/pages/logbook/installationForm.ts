@@ -8,7 +8,7 @@ import { fmtNum } from '../../format.ts';
 import type { Capture, GeometryInput, Workflow } from '../../state/workflow.ts';
 import { bandFrequencyGhz } from './geometryPlan.ts';
 import { line, note, num, optNum, RANGES, utcTime, wrapLonDeg, wrapRollDeg, type FieldErrors } from './parse.ts';
-import { isoSecondsUtc, parseCrew } from './words.ts';
+import { isoExactUtc, isoSecondsUtc, parseCrew } from './words.ts';
 
 export interface InstallationForm {
   siteId: string;
@@ -106,7 +106,7 @@ export function installationFormFromWorkflow(wf: Workflow, o: { crewName: string
 
 /** The form of a stored installation (editing writes a revision). */
 export function installationFormFromRecord(r: InstallationRecord): InstallationForm {
-  const n = (x: number | null, d = 6) => (x === null ? '' : String(Number(x.toFixed(d))));
+  const n = (x: number | null) => (x === null ? '' : String(x));
   return {
     siteId: r.siteId,
     reflectorId: r.reflectorId,
@@ -122,8 +122,8 @@ export function installationFormFromRecord(r: InstallationRecord): InstallationF
     fixLatDeg: r.fix ? String(r.fix.latDeg) : '',
     fixLonDeg: r.fix ? String(r.fix.lonDeg) : '',
     fixAccuracyM: r.fix ? String(r.fix.accuracyM) : '',
-    fixAt: r.fix ? isoSecondsUtc(r.fix.atMs) : '',
-    installedAt: isoSecondsUtc(r.installedAtMs),
+    fixAt: r.fix ? isoExactUtc(r.fix.atMs) : '',
+    installedAt: isoExactUtc(r.installedAtMs),
     crew: r.crew.join(', '),
     notes: r.notes,
     geometries: [],

@@ -21,6 +21,11 @@ export function isoSecondsUtc(ms: number): string {
   return `${new Date(ms).toISOString().slice(0, 19)}Z`;
 }
 
+/** A stored instant as form text without losing milliseconds (so an untouched edit changes nothing). */
+export function isoExactUtc(ms: number): string {
+  return ms % 1000 === 0 ? isoSecondsUtc(ms) : new Date(ms).toISOString();
+}
+
 const DAY_MS = 86_400_000;
 
 /** Last visit for the site list: "never visited", "today", "3 days ago (2026-06-12)". `nowMs` is passed in. */
@@ -100,3 +105,6 @@ export function writtenBy(settingsCrewName: string, crew: readonly string[] = []
   const name = settingsCrewName.trim() || crew[0] || 'crew (name not set)';
   return name.replace(/[\u0000-\u001F\u007F]/g, ' ').slice(0, 80);
 }
+
+/** A photo role in words ("Along the boresight"); unknown roles as stored. */
+export const photoRoleLabel = (role: string): string => PHOTO_ROLE_WORDS[role] ?? role;
