@@ -1,6 +1,6 @@
 /** Tab icons as inline SVG data URLs of our own (no icon font to download, works offline). */
 const svg = (body: string) =>
-  `data:image/svg+xml;utf8,<svg xmlns='http://www.w3.org/2000/svg' viewBox='0 0 24 24' fill='none' stroke='black' stroke-width='2.2' stroke-linecap='round' stroke-linejoin='round'>${body}</svg>`;
+  `data:image/svg+xml;utf8,<svg xmlns='http://www.w3.org/2000/svg' viewBox='0 0 24 24' fill='none' stroke='currentColor' stroke-width='2.2' stroke-linecap='round' stroke-linejoin='round'>${body}</svg>`;
 
 export const TABS = [
   { tab: 'plan', path: '/plan', label: 'Plan', icon: svg('<path d="M4 20 L4 8 L12 4 L20 8 L20 20 Z"/><path d="M4 20 L12 12 L20 20"/>') },
