@@ -2,7 +2,9 @@
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { mkdirSync } from 'node:fs';
 
-export const BASE_URL = 'http://127.0.0.1:4173';
+/** The preview server (test/e2e/global-setup.ts); GLINTMARK_E2E_PORT moves it when 4173 is taken. */
+export const E2E_PORT = Number(process.env.GLINTMARK_E2E_PORT ?? 4173);
+export const BASE_URL = `http://127.0.0.1:${E2E_PORT}`;
 export const CHROMIUM_ARGS = [
   '--no-sandbox',
   '--disable-gpu',

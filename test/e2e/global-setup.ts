@@ -1,11 +1,11 @@
 /**
- * Browser-test setup: build the app once, serve dist/ with `vite preview` on 127.0.0.1:4173 (a secure context, so
+ * Browser-test setup: build the app once, serve dist/ with `vite preview` on 127.0.0.1:4173 (or GLINTMARK_E2E_PORT; a secure context, so
  * geolocation and orientation work), and stop the server afterwards.
  */
 import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
 import { existsSync, mkdirSync } from 'node:fs';
+import { BASE_URL, E2E_PORT } from './browser.ts';
 
-export const BASE_URL = 'http://127.0.0.1:4173';
 let server: ChildProcess | undefined;
 
 async function waitForServer(url: string, timeoutMs: number): Promise<void> {
@@ -28,7 +28,7 @@ export async function setup(): Promise<void> {
     const b = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
     if (b.status !== 0) throw new Error('vite build failed');
   }
-  server = spawn('npx', ['vite', 'preview', '--host', '127.0.0.1', '--port', '4173', '--strictPort'], { stdio: 'ignore', detached: true });
+  server = spawn('npx', ['vite', 'preview', '--host', '127.0.0.1', '--port', String(E2E_PORT), '--strictPort'], { stdio: 'ignore', detached: true });
   await waitForServer(BASE_URL + '/', 30_000);
 }
 
