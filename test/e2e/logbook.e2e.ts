@@ -277,6 +277,44 @@ describe('Logbook: durable records', () => {
     await shot('logbook-inspection-photo-too-large', 'inspection-saved');
     await click('view-site');
     await expect.poll(() => txt('inspection-row'), POLL).toMatch(/1 issue: debris in the corner/);
+  });
+
+  it('records a typed installation from the reflector card, marks missing figures in place, then "Next site" goes to Plan', async () => {
+    await click('install-A');
+    await page.waitForURL(/\/logbook\/new-installation\?reflector=/);
+    await expect.poll(() => el('pick-reflector').inputValue(), POLL).not.toBe('');
+    await fillIn('inst-az', '');
+    await click('save-installation');
+    await expect.poll(() => txt('inst-az-error'), POLL).toBe('Measured azimuth is empty');
+    expect(await txt('save-error')).toMatch(/Nothing saved yet: check the marked fields/);
+    await fillIn('inst-az', '101.5');
+    await fillIn('inst-tilt', '14.2');
+    await fillIn('inst-planned-az', '100');
+    await fillIn('inst-planned-tilt', '14.7');
+    await choose('inst-method', 'compass');
+    await click('save-installation');
+    await expect.poll(() => txt('inst-decl-error'), POLL).toMatch(/compass azimuth needs the declination/);
+    await fillIn('inst-decl', '1.2');
+    await fillIn('inst-decl-model', 'WMM2025');
+    await click('save-installation');
+    await expect.poll(() => txt('installation-saved'), POLL).toMatch(/Saved on this device[\s\S]*azimuth 101.50° true/);
+    await click('next-site');
+    await page.waitForURL(/\/plan$/);
+  });
+
+  it('passes axe on the site and installation screens in the dark theme too', async () => {
+    await page.evaluate(() => {
+      const k = 'glintmark.settings.v1';
+      localStorage.setItem(k, JSON.stringify({ ...JSON.parse(localStorage.getItem(k) ?? '{}'), theme: 'dark' }));
+    });
+    await page.goto(BASE_URL + '/logbook');
+    await click('site-row-MF-01');
+    await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(2);
+    await expectAccessible();
+    await shot('logbook-site-dark');
+    await el('installation-row').click();
+    await expect.poll(() => page.locator('[data-testid="record-history"]:visible').count(), POLL).toBe(1);
+    await expectAccessible();
     expect(errors).toEqual([]);
   });
 });
