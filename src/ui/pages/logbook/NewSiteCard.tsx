@@ -7,12 +7,12 @@ import { Link } from 'react-router-dom';
 import { siteRepo, useGlintmarkDb, withReopen, type SiteRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
+import { workflow } from '../../state/workflow.ts';
 import { ErrorNote, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { EMPTY_SITE_FORM, parseSiteForm, siteFormFromWorkflow, type SiteForm } from './siteForm.ts';
 import { SiteFormFields } from './SiteFormFields.tsx';
-import { workflow } from '../../state/workflow.ts';
 import { writtenBy } from './words.ts';
 
 export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecord) => void; title?: string }) {

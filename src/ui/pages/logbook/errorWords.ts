@@ -32,6 +32,6 @@ export function saveErrorMessage(e: unknown, kept = true): string {
     case 'VersionError':
       return NEWER;
     default:
-      return `Not saved: ${message}.${tail}`.replace('..', '.');
+      return `Not saved: ${message.replace(/\.$/, '')}.${tail}`;
   }
 }

@@ -135,9 +135,13 @@ function titleOf(r: RevisionRecord, label: string): string {
   return `Edited ${label}`;
 }
 
-/** Entries newest first; cascaded revisions folded into the entry whose revision started them. */
+/**
+ * Entries newest first; cascaded revisions folded into the entry whose revision started them. Entries at the same
+ * instant keep the input order reversed (sources listed parent first, each source's revisions oldest first).
+ */
 export function buildTimeline(sources: readonly TimelineSource[]): TimelineEntry[] {
   const entries = new Map<string, TimelineEntry>();
+  const seq = new Map<string, number>();
   const cascaded: { of: string; label: string }[] = [];
   for (const s of sources) {
     for (const r of s.revisions) {
@@ -157,10 +161,11 @@ export function buildTimeline(sources: readonly TimelineSource[]): TimelineEntry
         details: r.kind === 'update' ? r.changes.map(describeChange) : [],
         alsoChanged: [],
       });
+      seq.set(r.id, seq.size);
     }
   }
   for (const c of cascaded) entries.get(c.of)?.alsoChanged.push(c.label);
-  return [...entries.values()].sort((a, b) => b.atMs - a.atMs || b.rev - a.rev || a.id.localeCompare(b.id));
+  return [...entries.values()].sort((a, b) => b.atMs - a.atMs || (seq.get(b.id) ?? 0) - (seq.get(a.id) ?? 0));
 }
 
 /** Everything that happened on a site and to its reflectors, geometries, installations and inspections (deleted ones too). */
