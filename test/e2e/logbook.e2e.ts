@@ -302,6 +302,32 @@ describe('Logbook: durable records', () => {
     await page.waitForURL(/\/plan$/);
   });
 
+  it('refuses an edit of a record changed in another tab, keeping the form and saying why', async () => {
+    await page.goto(BASE_URL + '/logbook');
+    await click('site-row-MF-01');
+    await el('installation-row').click();
+    await page.waitForURL(/\/logbook\/installation\//);
+    const url = page.url();
+    await expect.poll(() => el('inst-notes').inputValue(), POLL).not.toBe('');
+    const other = await ctx.newPage();
+    await other.goto(url);
+    await other.locator('[data-testid="inst-notes"]:visible').fill('edited in the other tab');
+    await other.locator('[data-testid="save-installation"]:visible').click();
+    await expect.poll(() => other.locator('[data-testid="saved"]:visible').innerText(), POLL).toMatch(/Saved on this device/);
+    await other.close();
+    await fillIn('inst-crew', 'Ann Tester, Bo Second');
+    await click('save-installation');
+    await expect.poll(() => txt('save-error'), POLL).toMatch(/changed elsewhere .*Your entries are still in the form/);
+    expect(await el('inst-crew').inputValue()).toBe('Ann Tester, Bo Second');
+    await shot('logbook-stale-edit', 'save-error');
+    // Apply the crew's change to the current version: the other tab's notes stay.
+    await click('apply-to-current');
+    await expect.poll(() => txt('saved'), POLL).toMatch(/Saved on this device/);
+    expect(await el('inst-crew').inputValue()).toBe('Ann Tester, Bo Second');
+    expect(await el('inst-notes').inputValue()).toBe('edited in the other tab');
+    await expect.poll(() => txt('record-history'), POLL).toMatch(/crew: Ann Tester → Ann Tester, Bo Second/);
+  });
+
   it('passes axe on the site and installation screens in the dark theme too', async () => {
     await page.evaluate(() => {
       const k = 'glintmark.settings.v1';

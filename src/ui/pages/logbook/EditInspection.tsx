@@ -1,5 +1,4 @@
 /** A stored inspection: edit (a revision per save), photos, history, soft delete with Undo. */
-import { useState } from 'react';
 import { inspectionRepo, useGlintmarkDb, useInspection, useReflectors, useSite, withReopen, type InspectionFields, type InspectionRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
@@ -10,17 +9,10 @@ import { shownErrors } from './inputs.tsx';
 import { InspectionFieldset } from './InspectionFieldset.tsx';
 import { inspectionFormFromRecord, isInspectionForm, parseInspectionForm, type InspectionForm } from './inspectionForm.ts';
 import { StoredPhotos } from './Photos.tsx';
-import { changedFields, withoutMeta } from './siteForm.ts';
+import { withoutMeta } from './siteForm.ts';
 import { RecordHistory } from './Timeline.tsx';
-import { useFormDraft } from './useFormDraft.ts';
+import { useEditSession } from './useEditSession.ts';
 import { fmtUtc, writtenBy } from './words.ts';
-
-interface EditDraft {
-  baseRev: number;
-  form: InspectionForm;
-}
-const isEditDraft = (v: unknown): v is EditDraft =>
-  typeof v === 'object' && v !== null && typeof (v as EditDraft).baseRev === 'number' && isInspectionForm((v as EditDraft).form);
 
 function EditForm(props: { rec: InspectionRecord }) {
   const { rec } = props;
@@ -29,64 +21,28 @@ function EditForm(props: { rec: InspectionRecord }) {
   const wf = useStore(workflow);
   const site = useSite(rec.siteId);
   const reflectors = useReflectors(rec.siteId);
-  const [form, setForm] = useState<InspectionForm>(() => inspectionFormFromRecord(rec));
-  const [baseRev, setBaseRev] = useState(rec.rev);
-  const [saved, setSaved] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-  const draft = useFormDraft(`inspection-edit:${rec.id}`, isEditDraft, (d) => {
-    setForm(d.form);
-    setBaseRev(d.baseRev);
+  const edit = useEditSession({
+    draftKey: `inspection-edit:${rec.id}`,
+    rec,
+    toForm: inspectionFormFromRecord,
+    isForm: isInspectionForm,
+    parse: (f: InspectionForm) => parseInspectionForm(f).fields,
+    current: (r): Omit<InspectionFields, 'photoIds'> => withoutMeta(r),
+    write: (patch, expectedRev) => inspectionRepo.update(db, rec.id, patch, { by, expectedRev }),
   });
+  const { form, update, saved, setSaved, error, setError } = edit;
   const parsed = parseInspectionForm(form);
   const deleted = rec.deletedAtMs !== null;
   const by = writtenBy(st.crewName, parsed.fields?.crew ?? rec.crew);
   const label = reflectors?.find((r) => r.id === rec.reflectorId)?.label ?? '…';
 
-  const update = (patch: Partial<InspectionForm>) => {
-    const next = { ...form, ...patch };
-    setForm(next);
-    setSaved(null);
-    setError(null);
-    draft.save({ baseRev, form: next });
-  };
-  const discard = async () => {
-    await draft.clear();
-    setForm(inspectionFormFromRecord(rec));
-    setBaseRev(rec.rev);
-  };
-  const save = async () => {
-    setError(null);
-    setSaved(null);
-    if (!parsed.fields) {
-      setError('Nothing saved: check the marked fields.');
-      return;
-    }
-    const patch = changedFields<Omit<InspectionFields, 'photoIds'>>(withoutMeta(rec), parsed.fields);
-    if (Object.keys(patch).length === 0) {
-      setSaved('No changes to save: the record on this device is the same.');
-      return;
-    }
-    setBusy(true);
-    try {
-      const next = await withReopen(db, () => inspectionRepo.update(db, rec.id, patch, { by, expectedRev: baseRev }));
-      await draft.clear();
-      setBaseRev(next.rev);
-      setForm(inspectionFormFromRecord(next));
-      setSaved('Saved on this device');
-    } catch (e) {
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
-  };
   const toggleDeleted = async () => {
     setError(null);
     setSaved(null);
     try {
       const ctx = { by, expectedRev: rec.rev };
       const next = await withReopen(db, () => (deleted ? inspectionRepo.undelete(db, rec.id, ctx) : inspectionRepo.softDelete(db, rec.id, ctx)));
-      setBaseRev(next.rev);
+      edit.rebase(next.rev);
       setSaved(deleted ? 'Inspection restored on this device' : 'Inspection deleted on this device');
     } catch (e) {
       setError(saveErrorMessage(e, false));
@@ -112,10 +68,10 @@ function EditForm(props: { rec: InspectionRecord }) {
           </button>
         </div>
       ) : null}
-      {draft.restoredAtMs !== null ? (
+      {edit.draft.restoredAtMs !== null ? (
         <div className="gm-card" role="status" data-testid="draft-restored">
-          <p>Unsaved edits restored from {fmtUtc(draft.restoredAtMs)}.</p>
-          <button type="button" className="gm-btn" onClick={() => void discard()} data-testid="discard-draft">
+          <p>Unsaved edits restored from {fmtUtc(edit.draft.restoredAtMs)}.</p>
+          <button type="button" className="gm-btn" onClick={() => void edit.discard()} data-testid="discard-draft">
             Discard draft
           </button>
         </div>
@@ -124,8 +80,8 @@ function EditForm(props: { rec: InspectionRecord }) {
         <>
           <InspectionFieldset form={form} set={update} errors={shownErrors(parsed.errors, form, true)} capture={wf.capture} />
           <div className="gm-lb-actions">
-            <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-inspection">
-              {busy ? 'Saving…' : 'Save changes'}
+            <button type="button" className="gm-btn gm-primary" onClick={() => void edit.save()} disabled={edit.busy} data-testid="save-inspection">
+              {edit.busy ? 'Saving…' : 'Save changes'}
             </button>
             <button type="button" className="gm-btn" onClick={() => void toggleDeleted()} data-testid="delete-inspection">
               Delete inspection
@@ -135,7 +91,18 @@ function EditForm(props: { rec: InspectionRecord }) {
       )}
       {saved ? <SavedNote>{saved}</SavedNote> : null}
       <ErrorNote message={error} />
-      <StoredPhotos owner={{ table: 'inspections', id: rec.id }} by={by} disabled={deleted} onWrite={() => setBaseRev((r) => r + 1)} />
+      {edit.stale ? (
+        <div className="gm-lb-actions">
+          <button type="button" className="gm-btn gm-primary" onClick={() => void edit.save('current')} data-testid="apply-to-current">
+            Apply my changes to the current version
+          </button>
+          <button type="button" className="gm-btn" onClick={() => void edit.discard()} data-testid="discard-mine">
+            Discard my changes
+          </button>
+        </div>
+      ) : null}
+      <ErrorNote message={edit.draft.error} testId="draft-error" />
+      <StoredPhotos owner={{ table: 'inspections', id: rec.id }} by={by} disabled={deleted} onWrite={edit.ownWrite} />
       <section className="gm-section" aria-labelledby="rh-h">
         <h2 id="rh-h">History of this record</h2>
         <RecordHistory table="inspections" id={rec.id} label="this inspection" />

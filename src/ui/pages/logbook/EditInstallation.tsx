@@ -2,7 +2,6 @@
  * A stored installation: edit it (each save writes a revision, refused if the record changed meanwhile), add or
  * remove photos, see its history, delete it softly with Undo. Unsaved edits are kept as a draft.
  */
-import { useState } from 'react';
 import { installationRepo, useGlintmarkDb, useInstallation, useReflectors, useSite, withReopen, type InstallationRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
@@ -12,17 +11,10 @@ import { shownErrors } from './inputs.tsx';
 import { InstallationFieldset } from './InstallationFieldset.tsx';
 import { installationFormFromRecord, isInstallationForm, parseInstallationForm, type InstallationCoreFields, type InstallationForm } from './installationForm.ts';
 import { StoredPhotos } from './Photos.tsx';
-import { changedFields, withoutMeta } from './siteForm.ts';
+import { withoutMeta } from './siteForm.ts';
 import { RecordHistory } from './Timeline.tsx';
-import { useFormDraft } from './useFormDraft.ts';
+import { useEditSession } from './useEditSession.ts';
 import { fmtUtc, writtenBy } from './words.ts';
-
-interface EditDraft {
-  baseRev: number;
-  form: InstallationForm;
-}
-const isEditDraft = (v: unknown): v is EditDraft =>
-  typeof v === 'object' && v !== null && typeof (v as EditDraft).baseRev === 'number' && isInstallationForm((v as EditDraft).form);
 
 function EditForm(props: { rec: InstallationRecord }) {
   const { rec } = props;
@@ -30,65 +22,29 @@ function EditForm(props: { rec: InstallationRecord }) {
   const st = useStore(settings);
   const site = useSite(rec.siteId);
   const reflectors = useReflectors(rec.siteId);
-  const [form, setForm] = useState<InstallationForm>(() => installationFormFromRecord(rec));
-  const [baseRev, setBaseRev] = useState(rec.rev);
-  const [saved, setSaved] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
-  const draft = useFormDraft(`installation-edit:${rec.id}`, isEditDraft, (d) => {
-    setForm(d.form);
-    setBaseRev(d.baseRev);
+  const edit = useEditSession({
+    draftKey: `installation-edit:${rec.id}`,
+    rec,
+    toForm: installationFormFromRecord,
+    isForm: isInstallationForm,
+    parse: (f: InstallationForm) => parseInstallationForm(f).fields,
+    current: (r): InstallationCoreFields => withoutMeta(r),
+    write: (patch, expectedRev) => installationRepo.update(db, rec.id, patch, { by, expectedRev }),
   });
+  const { form, update, saved, setSaved, error, setError } = edit;
   const parsed = parseInstallationForm(form);
-  const errors = shownErrors(parsed.errors, form, true);
   const deleted = rec.deletedAtMs !== null;
+  const errors = shownErrors(parsed.errors, form, true);
   const by = writtenBy(st.crewName, parsed.fields?.crew ?? rec.crew);
   const label = reflectors?.find((r) => r.id === rec.reflectorId)?.label ?? '…';
 
-  const update = (patch: Partial<InstallationForm>) => {
-    const next = { ...form, ...patch };
-    setForm(next);
-    setSaved(null);
-    setError(null);
-    draft.save({ baseRev, form: next });
-  };
-  const discard = async () => {
-    await draft.clear();
-    setForm(installationFormFromRecord(rec));
-    setBaseRev(rec.rev);
-  };
-  const save = async () => {
-    setError(null);
-    setSaved(null);
-    if (!parsed.fields) {
-      setError('Nothing saved: check the marked fields.');
-      return;
-    }
-    const patch = changedFields<InstallationCoreFields>(withoutMeta(rec), parsed.fields);
-    if (Object.keys(patch).length === 0) {
-      setSaved('No changes to save: the record on this device is the same.');
-      return;
-    }
-    setBusy(true);
-    try {
-      const next = await withReopen(db, () => installationRepo.update(db, rec.id, patch, { by, expectedRev: baseRev }));
-      await draft.clear();
-      setBaseRev(next.rev);
-      setForm(installationFormFromRecord(next));
-      setSaved('Saved on this device');
-    } catch (e) {
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
-  };
   const toggleDeleted = async () => {
     setError(null);
     setSaved(null);
     try {
       const ctx = { by, expectedRev: rec.rev };
       const next = await withReopen(db, () => (deleted ? installationRepo.undelete(db, rec.id, ctx) : installationRepo.softDelete(db, rec.id, ctx)));
-      setBaseRev(next.rev);
+      edit.rebase(next.rev);
       setSaved(deleted ? 'Installation restored on this device' : 'Installation deleted on this device');
     } catch (e) {
       setError(saveErrorMessage(e, false));
@@ -114,10 +70,10 @@ function EditForm(props: { rec: InstallationRecord }) {
           </button>
         </div>
       ) : null}
-      {draft.restoredAtMs !== null ? (
+      {edit.draft.restoredAtMs !== null ? (
         <div className="gm-card" role="status" data-testid="draft-restored">
-          <p>Unsaved edits restored from {fmtUtc(draft.restoredAtMs)}.</p>
-          <button type="button" className="gm-btn" onClick={() => void discard()} data-testid="discard-draft">
+          <p>Unsaved edits restored from {fmtUtc(edit.draft.restoredAtMs)}.</p>
+          <button type="button" className="gm-btn" onClick={() => void edit.discard()} data-testid="discard-draft">
             Discard draft
           </button>
         </div>
@@ -126,8 +82,8 @@ function EditForm(props: { rec: InstallationRecord }) {
         <>
           <InstallationFieldset form={form} set={update} errors={errors} />
           <div className="gm-lb-actions">
-            <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-installation">
-              {busy ? 'Saving…' : 'Save changes'}
+            <button type="button" className="gm-btn gm-primary" onClick={() => void edit.save()} disabled={edit.busy} data-testid="save-installation">
+              {edit.busy ? 'Saving…' : 'Save changes'}
             </button>
             <button type="button" className="gm-btn" onClick={() => void toggleDeleted()} data-testid="delete-installation">
               Delete installation
@@ -137,10 +93,21 @@ function EditForm(props: { rec: InstallationRecord }) {
       )}
       {saved ? <SavedNote>{saved}</SavedNote> : null}
       <ErrorNote message={error} />
+      {edit.stale ? (
+        <div className="gm-lb-actions">
+          <button type="button" className="gm-btn gm-primary" onClick={() => void edit.save('current')} data-testid="apply-to-current">
+            Apply my changes to the current version
+          </button>
+          <button type="button" className="gm-btn" onClick={() => void edit.discard()} data-testid="discard-mine">
+            Discard my changes
+          </button>
+        </div>
+      ) : null}
+      <ErrorNote message={edit.draft.error} testId="draft-error" />
       <p className="gm-note">
         Serves {rec.geometryIds.length} planned geometr{rec.geometryIds.length === 1 ? 'y' : 'ies'} of the site (listed on the site screen).
       </p>
-      <StoredPhotos owner={{ table: 'installations', id: rec.id }} by={by} disabled={deleted} onWrite={() => setBaseRev((r) => r + 1)} />
+      <StoredPhotos owner={{ table: 'installations', id: rec.id }} by={by} disabled={deleted} onWrite={edit.ownWrite} />
       <section className="gm-section" aria-labelledby="rh-h">
         <h2 id="rh-h">History of this record</h2>
         <RecordHistory table="installations" id={rec.id} label="this installation" />

@@ -21,7 +21,7 @@ export function saveErrorMessage(e: unknown, kept = true): string {
     case 'RecordNotFoundError':
       return `${message}${tail}`;
     case 'StaleRecordError':
-      return `${message} Your entries are still in the form; open the record again to see the other change, then edit.`;
+      return `${message.replace(/;? ?reload it and try again\.?$/i, '.')} Your entries are still in the form: apply them to the current version (the other change stays in every field you did not edit), or discard them.`;
     case 'PhotoTooLargeError':
       return message;
     case 'QuotaExceededError':
