@@ -25,6 +25,9 @@ export function ReflectorEditor(props: {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string | null>(null);
   const [saved, setSaved] = useState(false);
+  const [stale, setStale] = useState(false);
+  // The version the edit started from (see SiteEditor): changed fields only, onto that rev.
+  const [base] = useState(() => (props.existing ? { rev: props.existing.rev, fields: withoutMeta(props.existing) } : null));
   const parsed = parseReflectorForm(form, props.siteId);
   const errors = shownErrors(parsed.errors, form, tried);
   const set = (patch: Partial<ReflectorForm>) => {
@@ -32,7 +35,7 @@ export function ReflectorEditor(props: {
     setSaved(false);
   };
 
-  const save = async () => {
+  const save = async (onto?: 'current') => {
     setTried(true);
     if (!parsed.fields) {
       setError('Check the marked fields.');
@@ -44,12 +47,16 @@ export function ReflectorEditor(props: {
     try {
       const by = writtenBy(st.crewName);
       const ex = props.existing;
-      const rec = ex
-        ? await withReopen(db, () => reflectorRepo.update(db, ex.id, changedFields(withoutMeta(ex), fields), { by, expectedRev: ex.rev }))
-        : await withReopen(db, () => reflectorRepo.create(db, fields, { by }));
+      const rec =
+        ex && base
+          ? await withReopen(db, () =>
+              reflectorRepo.update(db, ex.id, changedFields(base.fields, fields), { by, expectedRev: onto === 'current' ? ex.rev : base.rev }),
+            )
+          : await withReopen(db, () => reflectorRepo.create(db, fields, { by }));
       setSaved(true);
       props.onSaved(rec);
     } catch (e) {
+      setStale(e instanceof Error && e.name === 'StaleRecordError');
       setError(saveErrorMessage(e));
     } finally {
       setBusy(false);
@@ -103,6 +110,11 @@ export function ReflectorEditor(props: {
         </button>
       </div>
       <ErrorNote message={error} />
+      {stale ? (
+        <button type="button" className="gm-btn gm-primary" onClick={() => void save('current')} data-testid="apply-to-current">
+          Apply my changes to the current version
+        </button>
+      ) : null}
       {saved ? <SavedNote /> : null}
     </section>
   );

@@ -23,21 +23,27 @@ import './logbook.css';
 function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void }) {
   const db = useGlintmarkDb();
   const st = useStore(settings);
+  // The version the edit started from: only the fields changed since then are written, and only onto that rev
+  // unless the crew chooses to apply them to the current version after a refusal.
+  const [base] = useState(() => ({ rev: props.site.rev, fields: withoutMeta(props.site) }));
   const [form, setForm] = useState<SiteForm>(() => siteFormFromRecord(props.site));
   const [error, setError] = useState<string | null>(null);
+  const [stale, setStale] = useState(false);
   const [busy, setBusy] = useState(false);
   const parsed = parseSiteForm(form, props.site.demo);
-  const save = async () => {
+  const save = async (onto?: 'current') => {
     if (!parsed.fields) {
       setError('Check the marked fields.');
       return;
     }
-    const patch = changedFields(withoutMeta(props.site), parsed.fields);
+    const patch = changedFields(base.fields, parsed.fields);
+    const expectedRev = onto === 'current' ? props.site.rev : base.rev;
     setBusy(true);
     try {
-      await withReopen(db, () => siteRepo.update(db, props.site.id, patch, { by: writtenBy(st.crewName), expectedRev: props.site.rev }));
+      await withReopen(db, () => siteRepo.update(db, props.site.id, patch, { by: writtenBy(st.crewName), expectedRev }));
       props.onDone(true);
     } catch (e) {
+      setStale(e instanceof Error && e.name === 'StaleRecordError');
       setError(saveErrorMessage(e));
     } finally {
       setBusy(false);
@@ -55,6 +61,11 @@ function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void 
         </button>
       </div>
       <ErrorNote message={error} />
+      {stale ? (
+        <button type="button" className="gm-btn gm-primary" onClick={() => void save('current')} data-testid="apply-to-current">
+          Apply my changes to the current version
+        </button>
+      ) : null}
     </section>
   );
 }
