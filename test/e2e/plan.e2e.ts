@@ -51,6 +51,7 @@ describe('first run', () => {
     await expect.poll(() => page.locator('[data-testid="plan-site"]').innerText().catch(() => ''), { timeout: 20_000 }).toContain('MF-01');
     await expect.poll(() => page.locator('[data-testid="result-azimuth"]').innerText()).toMatch(/\d/);
     await screenshot(page, 'first-run-demo-loaded');
+    await page.waitForTimeout(1000); // the task is saved a moment (300 ms) after each change
     await page.reload();
     await page.locator('[data-testid="result-azimuth"]').waitFor();
     expect(await ack.count()).toBe(0);

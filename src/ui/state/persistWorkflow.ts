@@ -18,19 +18,35 @@ export async function restoreWorkflow(db: GlintmarkDb): Promise<void> {
   if (d && isWorkflow(d.value)) workflow.set({ ...DEFAULT_WORKFLOW, ...d.value });
 }
 
-/** Save on every change, at most every 300 ms. Returns an unsubscribe function. */
+/**
+ * Save on every change, at most every 300 ms, and at once when the page is hidden (app backgrounded or closed).
+ * Returns an unsubscribe function.
+ */
 export function persistWorkflow(db: GlintmarkDb): () => void {
   let timer: ReturnType<typeof setTimeout> | undefined;
+  let pending = false;
+  const save = () => {
+    clearTimeout(timer);
+    if (!pending) return;
+    pending = false;
+    saveDraft(db, KEY, workflow.get()).catch(() => {
+      /* the draft is a convenience: a failed write leaves the previous draft in place */
+    });
+  };
   const unsub = workflow.subscribe(() => {
+    pending = true;
     clearTimeout(timer);
-    timer = setTimeout(() => {
-      saveDraft(db, KEY, workflow.get()).catch(() => {
-        /* the draft is a convenience: a failed write leaves the previous draft in place */
-      });
-    }, 300);
+    timer = setTimeout(save, 300);
   });
+  const onHide = () => {
+    if (document.visibilityState === 'hidden') save();
+  };
+  document.addEventListener('visibilitychange', onHide);
+  window.addEventListener('pagehide', save);
   return () => {
-    clearTimeout(timer);
+    save();
     unsub();
+    document.removeEventListener('visibilitychange', onHide);
+    window.removeEventListener('pagehide', save);
   };
 }
