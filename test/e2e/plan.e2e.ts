@@ -47,7 +47,7 @@ describe('first run', () => {
     await screenshot(page, 'first-run-safety');
     await ack.click();
     // Next the invented demo is offered once; loading it aims the Plan screen at a demo track over MF-01.
-    await page.locator('[data-testid="load-demo"]').click();
+    await page.locator('[data-testid="load-demo-scenario"]').click();
     await expect.poll(() => page.locator('[data-testid="plan-site"]').innerText().catch(() => ''), { timeout: 20_000 }).toContain('MF-01');
     await expect.poll(() => page.locator('[data-testid="result-azimuth"]').innerText()).toMatch(/\d/);
     await screenshot(page, 'first-run-demo-loaded');
@@ -55,7 +55,7 @@ describe('first run', () => {
     await page.reload();
     await page.locator('[data-testid="result-azimuth"]').waitFor();
     expect(await ack.count()).toBe(0);
-    expect(await page.locator('[data-testid="load-demo"]').count()).toBe(0);
+    expect(await page.locator('[data-testid="load-demo-scenario"]').count()).toBe(0);
     // The task survives the reload (kept in the logbook's drafts).
     await expect.poll(() => page.locator('[data-testid="plan-site"]').innerText().catch(() => '')).toContain('MF-01');
     await ctx.close();

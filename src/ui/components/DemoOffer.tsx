@@ -60,7 +60,7 @@ export function DemoOffer() {
         </p>
         {error ? <p className="gm-error" role="alert">{error}</p> : null}
         <div className="gm-row">
-          <button type="button" className="gm-btn gm-primary" disabled={busy} onClick={load} data-testid="load-demo">
+          <button type="button" className="gm-btn gm-primary" disabled={busy} onClick={load} data-testid="load-demo-scenario">
             {busy ? 'Loading…' : 'Load the demo'}
           </button>
           <button type="button" className="gm-btn" disabled={busy} onClick={() => settings.set({ demoOfferedAtMs: Date.now() })} data-testid="skip-demo">
