@@ -55,6 +55,12 @@ export class DuplicateCodeError extends Error {
   }
 }
 
+/** What one row of each table is called in messages. */
+const RECORD_NOUN: Record<string, string> = {
+  sites: 'site', reflectors: 'reflector', geometries: 'planned geometry', installations: 'installation',
+  inspections: 'inspection', photos: 'photo', elements: 'element set',
+};
+
 /** The record changed since the caller read it (another tab, a merge). Reload and edit again. */
 export class StaleRecordError extends Error {
   override readonly name = 'StaleRecordError';
@@ -64,7 +70,7 @@ export class StaleRecordError extends Error {
     readonly expectedRev: number,
     readonly actualRev: number,
   ) {
-    super(`This ${table} record was changed elsewhere (now revision ${actualRev}, you edited revision ${expectedRev}); reload it and try again.`);
+    super(`This ${RECORD_NOUN[table] ?? table} record was changed elsewhere (now revision ${actualRev}, you edited revision ${expectedRev}); reload it and try again.`);
   }
 }
 

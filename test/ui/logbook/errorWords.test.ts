@@ -11,7 +11,7 @@ describe('save errors in plain words', () => {
     );
     expect(saveErrorMessage(new ValidationError('The site', [{ path: 'latDeg', message: 'bad' }]), false)).toBe('The site was not saved: latDeg: bad');
     expect(saveErrorMessage(new StaleRecordError('installations', 'id', 1, 2))).toBe(
-      'This installations record was changed elsewhere (now revision 2, you edited revision 1). Your entries are still in the form: apply them to the current version (the other change stays in every field you did not edit), or discard them.',
+      'This installation record was changed elsewhere (now revision 2, you edited revision 1). Your entries are still in the form: apply them to the current version (the other change stays in every field you did not edit), or discard them.',
     );
     expect(saveErrorMessage(new PhotoTooLargeError(9_100_000, 8_000_000))).toMatch(/^The photo is 9\.1 MB/);
   });

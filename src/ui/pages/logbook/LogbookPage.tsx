@@ -9,6 +9,7 @@ import { getMeta, requestPersistentStorage, useGlintmarkDb, useOpenConflicts, us
 import { Segmented } from '../../components/fields.tsx';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
+import { BackupReminder } from '../settings/BackupReminder.tsx';
 import { DemoBadge } from './bits.tsx';
 import { TextInput } from './inputs.tsx';
 import { NewSiteCard } from './NewSiteCard.tsx';
@@ -93,6 +94,7 @@ export function LogbookPage() {
       <IonContent className="ion-padding">
         <main>
           <h1 className="gm-label">Sites on this device</h1>
+          <BackupReminder />
           {conflicts && conflicts.length > 0 ? (
             <p className="gm-warn" data-testid="conflicts-count">
               ⚠ {conflicts.length} merge conflict{conflicts.length === 1 ? '' : 's'} to review: <Link to="/settings">open Settings</Link>.
