@@ -15,3 +15,16 @@ export function fmtDeg(x: number, digits = 1, style: 'decimal' | 'dm' = 'decimal
   }
   return `${sign}${d}° ${m.toFixed(3)}′`;
 }
+
+export type LengthUnit = 'm' | 'ft';
+/** International foot, exactly 0.3048 m (International Yard and Pound Agreement, 1959). */
+export const M_PER_FT = 0.3048;
+
+/** A length stored in metres, shown in the crew's unit. */
+export function fmtLength(m: number, unit: LengthUnit, digits = 2): string {
+  if (!Number.isFinite(m)) return '—';
+  return unit === 'ft' ? `${(m / M_PER_FT).toFixed(digits)} ft` : `${m.toFixed(digits)} m`;
+}
+
+/** A length typed in the crew's unit, in metres. */
+export const lengthToM = (value: number, unit: LengthUnit): number => (unit === 'ft' ? value * M_PER_FT : value);

@@ -56,3 +56,13 @@ describe('referenceLayoutView', () => {
     expect(r.errors.toLon).toMatch(/must be a number/);
   });
 });
+
+describe('tape layouts in feet', () => {
+  it('takes the baseline in feet and gives the tape offsets in feet (1 ft = 0.3048 m exactly)', () => {
+    const m = referenceLayoutView({ fromLat: '0', fromLon: '10', toLat: '0', toLon: '10.01' }, 100, '10');
+    const ft = referenceLayoutView({ fromLat: '0', fromLon: '10', toLat: '0', toLon: '10.01' }, 100, String(10 / 0.3048), 'ft');
+    expect(ft.view?.layout.alongM).toBeCloseTo(m.view!.layout.alongM, 9);
+    expect(ft.view?.steps.join(' ')).toContain(`${(Math.abs(m.view!.layout.offsetM) / 0.3048).toFixed(2)} ft`);
+    expect(referenceLayoutView({ fromLat: '0', fromLon: '10', toLat: '0', toLon: '10.01' }, 100, '1', 'ft').errors.baseline).toMatch(/Baseline must be in \[3.3, 656.2\] ft, got 1/);
+  });
+});

@@ -2,7 +2,9 @@
 import { useEffect, useState } from 'react';
 import type { AzimuthReading } from '../../../core/alignment/methodCheck.ts';
 import { NumberField } from '../../components/fields.tsx';
-import { fmtNum } from '../../format.ts';
+import { fmtLength, fmtNum } from '../../format.ts';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
 import { methodCheck } from './captureAlign.ts';
 import { signedDeg, type PositionInput } from './computeAlign.ts';
 import { referenceLayoutView, sunLayoutView, type BearingForm, type SunLayoutView } from './azimuthLayouts.ts';
@@ -31,6 +33,7 @@ function Steps(props: { steps: string[]; testId: string }) {
 
 export function AzimuthMethods(props: AzimuthMethodsProps) {
   const target = props.targetAzimuthDeg;
+  const { lengthUnit } = useStore(settings);
   const [sunBaseline, setSunBaseline] = useState('10');
   const [sun, setSun] = useState<{ view: SunLayoutView | null; error: string | null } | null>(null);
   const [refBaseline, setRefBaseline] = useState('10');
@@ -42,7 +45,7 @@ export function AzimuthMethods(props: AzimuthMethodsProps) {
     if (pos) setBf((f) => (f.fromLat === '' && f.fromLon === '' ? { ...f, fromLat: pos.latDeg.toFixed(7), fromLon: pos.lonDeg.toFixed(7) } : f));
   }, [pos]);
 
-  const ref = target !== null && (bf.toLat !== '' || bf.toLon !== '') ? referenceLayoutView(bf, target, refBaseline) : null;
+  const ref = target !== null && (bf.toLat !== '' || bf.toLon !== '') ? referenceLayoutView(bf, target, refBaseline, lengthUnit) : null;
   const recorded = (m: AzimuthReading['method']) => props.readings.find((r) => r.method === m);
   const check = methodCheck(
     props.compassTrueDeg === null ? props.readings : [...props.readings, { method: 'compass', azimuthDeg: props.compassTrueDeg }],
@@ -58,10 +61,10 @@ export function AzimuthMethods(props: AzimuthMethodsProps) {
       <div className="gm-card" style={{ marginBottom: 8 }}>
         <h3>Sun and shadow</h3>
         <div className="gm-row">
-          <NumberField label="Baseline (pin to mark)" unit="m" value={sunBaseline} onChange={setSunBaseline} testId="sun-baseline" />
+          <NumberField label="Baseline (pin to mark)" unit={lengthUnit} value={sunBaseline} onChange={setSunBaseline} testId="sun-baseline" />
         </div>
         <div className="gm-btnrow">
-          <button type="button" className="gm-btn gm-primary" disabled={target === null} onClick={() => target !== null && setSun(sunLayoutView(pos, Date.now(), target, sunBaseline))} data-testid="sun-compute">
+          <button type="button" className="gm-btn gm-primary" disabled={target === null} onClick={() => target !== null && setSun(sunLayoutView(pos, Date.now(), target, sunBaseline, lengthUnit))} data-testid="sun-compute">
             {sun?.view ? 'Recompute for now' : 'Sun layout for now'}
           </button>
         </div>
@@ -92,13 +95,13 @@ export function AzimuthMethods(props: AzimuthMethodsProps) {
           <NumberField label="Pivot longitude" unit="°" value={bf.fromLon} onChange={(v) => setBf({ ...bf, fromLon: v })} error={ref?.errors.fromLon} testId="ref-from-lon" />
           <NumberField label="Reference latitude" unit="°" value={bf.toLat} onChange={(v) => setBf({ ...bf, toLat: v })} error={ref?.errors.toLat} testId="ref-to-lat" />
           <NumberField label="Reference longitude" unit="°" value={bf.toLon} onChange={(v) => setBf({ ...bf, toLon: v })} error={ref?.errors.toLon} testId="ref-to-lon" />
-          <NumberField label="Baseline (pivot to mark)" unit="m" value={refBaseline} onChange={setRefBaseline} error={ref?.errors.baseline} testId="ref-baseline" />
+          <NumberField label="Baseline (pivot to mark)" unit={lengthUnit} value={refBaseline} onChange={setRefBaseline} error={ref?.errors.baseline} testId="ref-baseline" />
         </div>
         {ref?.errors.points ? <p className="gm-error">{ref.errors.points}</p> : null}
         {ref?.view ? (
           <div data-testid="ref-layout">
             <p>
-              Reference bearing {fmtNum(ref.view.bearingDeg, 2)}° true, {fmtNum(ref.view.distanceM, 1)} m away. Turn {signedDeg(ref.view.layout.turnDeg)} to the target line.
+              Reference bearing {fmtNum(ref.view.bearingDeg, 2)}° true, {fmtLength(ref.view.distanceM, lengthUnit, 1)} away. Turn {signedDeg(ref.view.layout.turnDeg)} to the target line.
             </p>
             <Steps steps={ref.view.steps} testId="ref-steps" />
             <button type="button" className="gm-btn" onClick={() => target !== null && props.onRecord({ method: 'reference-bearing', azimuthDeg: target })} data-testid="record-ref">

@@ -4,6 +4,8 @@ import { requireLatDeg, requireLonDeg } from '../../../core/validate.ts';
 import { assessFix, sensors, type Fix } from '../../../sensors/index.ts';
 import { NumberField, parseField } from '../../components/fields.tsx';
 import { fmtDeg } from '../../format.ts';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
 import type { Workflow } from '../../state/workflow.ts';
 import { positionFrom, type PositionInput } from './computeAlign.ts';
 
@@ -67,12 +69,13 @@ export function usePosition(site: Workflow['site']): PositionState {
 }
 
 export function PositionCard(props: { p: PositionState; site: Workflow['site'] }) {
+  const { angleFormat } = useStore(settings);
   const { p } = props;
   return (
     <section className="gm-section" aria-labelledby="pos-h">
       <h2 id="pos-h">Position (for declination and sun)</h2>
       <p data-testid="position">
-        {p.position ? `Using ${p.position.label}: ${fmtDeg(p.position.latDeg, 5)}, ${fmtDeg(p.position.lonDeg, 5)}.` : 'No position yet.'}
+        {p.position ? `Using ${p.position.label}: ${fmtDeg(p.position.latDeg, 5, angleFormat)}, ${fmtDeg(p.position.lonDeg, 5, angleFormat)}.` : 'No position yet.'}
       </p>
       {p.fixMessage ? (
         <p className="gm-note" data-testid="fix-message">

@@ -7,17 +7,17 @@ import { geodesicInverse } from '../../../core/geodesy/bearing.ts';
 import { sunAzimuthRateDegPerMin, sunPosition } from '../../../core/sun/sunPosition.ts';
 import { toDeg } from '../../../core/units.ts';
 import { requireInRange, requireLatDeg, requireLonDeg } from '../../../core/validate.ts';
-import { parseField } from '../../components/fields.tsx';
+import { parseField, type Parsed } from '../../components/fields.tsx';
+import { fmtLength, lengthToM, M_PER_FT, type LengthUnit } from '../../format.ts';
 import type { PositionInput } from './computeAlign.ts';
 
 /** A reference closer than this gets a warning, m; with a point error of POINT_ERROR_M, m (common practice, no source). */
 const SHORT_REFERENCE_M = 20;
 const POINT_ERROR_M = 0.1;
 
-const m = (x: number) => `${Math.abs(x).toFixed(2)} m`;
-
-/** Steps for a tape layout, facing along a reference line named `facing`. */
-export function layoutSteps(l: TapeLayout, facing: string): string[] {
+/** Steps for a tape layout, facing along a reference line named `facing`; tape lengths in the crew's unit. */
+export function layoutSteps(l: TapeLayout, facing: string, unit: LengthUnit = 'm'): string[] {
+  const m = (x: number) => fmtLength(Math.abs(x), unit);
   const turn = l.turnDeg === 0 ? 'the target line is the reference line itself' : `the target line is ${Math.abs(l.turnDeg).toFixed(1)}° ${l.turnDeg > 0 ? 'clockwise' : 'anticlockwise'} of it`;
   return [
     `Stand at the pivot facing ${facing}; ${turn}.`,
@@ -26,7 +26,14 @@ export function layoutSteps(l: TapeLayout, facing: string): string[] {
   ];
 }
 
-export const baselineField = (text: string) => parseField('Baseline', text, (n, v) => requireInRange(n, v, { min: 1, max: 200, unit: 'm' }));
+/** The baseline as typed in the crew's unit, checked and returned in metres (1 to 200 m). */
+export function baselineField(text: string, unit: LengthUnit = 'm'): Parsed {
+  const limitFt = (x: number) => Number((x / M_PER_FT).toFixed(1));
+  const p = parseField('Baseline', text, (n, v) =>
+    unit === 'ft' ? requireInRange(n, v, { min: limitFt(1), max: limitFt(200), unit: 'ft' }) : requireInRange(n, v, { min: 1, max: 200, unit: 'm' }),
+  );
+  return p.value === undefined ? p : { value: lengthToM(p.value, unit) };
+}
 
 export interface SunLayoutView {
   sunAzimuthDeg: number;
@@ -38,9 +45,9 @@ export interface SunLayoutView {
 }
 
 /** Shadow layout for the sun at `timeMs`; a plain message when it cannot be done. */
-export function sunLayoutView(pos: PositionInput | null, timeMs: number, targetAzimuthDeg: number, baselineText: string): { view: SunLayoutView | null; error: string | null } {
+export function sunLayoutView(pos: PositionInput | null, timeMs: number, targetAzimuthDeg: number, baselineText: string, unit: LengthUnit = 'm'): { view: SunLayoutView | null; error: string | null } {
   if (!pos) return { view: null, error: 'The sun’s direction needs the site position: take a GPS fix or type the coordinates.' };
-  const b = baselineField(baselineText);
+  const b = baselineField(baselineText, unit);
   if (b.value === undefined) return { view: null, error: b.error ?? null };
   try {
     const sun = sunPosition({ latDeg: pos.latDeg, lonDeg: pos.lonDeg, heightM: pos.heightEllM ?? 0, timeMs });
@@ -56,7 +63,7 @@ export function sunLayoutView(pos: PositionInput | null, timeMs: number, targetA
         computedAtMs: timeMs,
         steps: [
           'Plumb a thin pin at the pivot and mark the tip of its shadow now.',
-          ...layoutSteps(layout, 'along the shadow, from the pin toward the shadow tip'),
+          ...layoutSteps(layout, 'along the shadow, from the pin toward the shadow tip', unit),
         ],
       },
       error: null,
@@ -81,12 +88,12 @@ export interface ReferenceLayoutView {
 }
 
 /** Reference line from the pivot (`from`) toward a landmark or second GNSS point (`to`), and its tape layout. */
-export function referenceLayoutView(f: BearingForm, targetAzimuthDeg: number, baselineText: string): { view: ReferenceLayoutView | null; errors: Partial<Record<keyof BearingForm | 'baseline' | 'points', string>> } {
+export function referenceLayoutView(f: BearingForm, targetAzimuthDeg: number, baselineText: string, unit: LengthUnit = 'm'): { view: ReferenceLayoutView | null; errors: Partial<Record<keyof BearingForm | 'baseline' | 'points', string>> } {
   const fromLat = parseField('Pivot latitude', f.fromLat, requireLatDeg);
   const fromLon = parseField('Pivot longitude', f.fromLon, requireLonDeg);
   const toLat = parseField('Reference latitude', f.toLat, requireLatDeg);
   const toLon = parseField('Reference longitude', f.toLon, requireLonDeg);
-  const b = baselineField(baselineText);
+  const b = baselineField(baselineText, unit);
   const errors: Partial<Record<keyof BearingForm | 'baseline' | 'points', string>> = {
     fromLat: fromLat.error, fromLon: fromLon.error, toLat: toLat.error, toLon: toLon.error, baseline: b.error,
   };
@@ -94,10 +101,10 @@ export function referenceLayoutView(f: BearingForm, targetAzimuthDeg: number, ba
   try {
     const g = geodesicInverse({ latDeg: fromLat.value, lonDeg: fromLon.value }, { latDeg: toLat.value, lonDeg: toLon.value });
     const layout = tapeLayout(g.azimuthDeg, targetAzimuthDeg, b.value);
-    const steps = layoutSteps(layout, 'the reference point (sight along the line to it)');
+    const steps = layoutSteps(layout, 'the reference point (sight along the line to it)', unit);
     if (g.distanceM < SHORT_REFERENCE_M) {
       const turnDeg = toDeg(Math.atan2(POINT_ERROR_M, g.distanceM));
-      steps.unshift(`The reference point is only ${g.distanceM.toFixed(1)} m away: a ${POINT_ERROR_M} m error in either point turns the line by about ${turnDeg.toFixed(1)}°. A point farther away is better.`);
+      steps.unshift(`The reference point is only ${fmtLength(g.distanceM, unit, 1)} away: a ${fmtLength(POINT_ERROR_M, unit, 1)} error in either point turns the line by about ${turnDeg.toFixed(1)}°. A point farther away is better.`);
     }
     return { view: { bearingDeg: g.azimuthDeg, distanceM: g.distanceM, layout, steps }, errors };
   } catch (e) {

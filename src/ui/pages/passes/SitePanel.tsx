@@ -2,7 +2,9 @@
 import { useEffect, useState } from 'react';
 import { assessFix, sensors, type FixAssessment } from '../../../sensors/index.ts';
 import { NumberField } from '../../components/fields.tsx';
-import { fmtDeg, fmtNum } from '../../format.ts';
+import { fmtDeg, fmtLength, fmtNum } from '../../format.ts';
+import { settings } from '../../state/settings.ts';
+import { useStore } from '../../state/store.ts';
 import type { SiteInput } from '../../state/workflow.ts';
 import { workflow } from '../../state/workflow.ts';
 import { parseSiteForm, type SiteForm } from './computePasses.ts';
@@ -15,6 +17,7 @@ const formFrom = (s: SiteInput | null): SiteForm =>
 const SOURCE_WORDS: Record<SiteInput['source'], string> = { 'gnss-phone': 'phone GNSS', typed: 'typed', logbook: 'logbook' };
 
 export function SitePanel(props: { site: SiteInput | null }) {
+  const { angleFormat, lengthUnit } = useStore(settings);
   const [form, setForm] = useState<SiteForm>(() => formFrom(props.site));
   const [busy, setBusy] = useState(false);
   const [gpsError, setGpsError] = useState<string | null>(null);
@@ -68,7 +71,7 @@ export function SitePanel(props: { site: SiteInput | null }) {
       {s ? (
         <p className="gm-okt" data-testid="passes-site">
           {s.code ? `${s.code} ` : ''}
-          {fmtDeg(s.latDeg, 5)}, {fmtDeg(s.lonDeg, 5)}, height {fmtNum(s.heightEllM, 1)} m ({SOURCE_WORDS[s.source]}
+          {fmtDeg(s.latDeg, 5, angleFormat)}, {fmtDeg(s.lonDeg, 5, angleFormat)}, height {fmtLength(s.heightEllM, lengthUnit, 1)} ({SOURCE_WORDS[s.source]}
           {s.accuracyM !== undefined ? `, ±${fmtNum(s.accuracyM, s.accuracyM < 10 ? 1 : 0)} m` : ''})
         </p>
       ) : (

@@ -6,6 +6,7 @@ import { BigNumber, NumberField, Segmented, SelectField } from '../../components
 import { RcsPatternPlot } from '../../components/RcsPatternPlot.tsx';
 import { SafetyNotice } from '../../components/SafetyNotice.tsx';
 import { useStore } from '../../state/store.ts';
+import { settings } from '../../state/settings.ts';
 import { workflow, type GeometryInput } from '../../state/workflow.ts';
 import { computePlan } from './computePlan.ts';
 import { fmtDeg, fmtNum } from '../../format.ts';
@@ -17,6 +18,7 @@ const BAND_OPTIONS = [
 
 export function PlanPage() {
   const wf = useStore(workflow);
+  const units = useStore(settings);
   const history = useHistory();
   const [frequencyGhz, setFrequencyGhz] = useState('5.405');
   const [clutterDb, setClutterDb] = useState('-10');
@@ -60,7 +62,7 @@ export function PlanPage() {
           <h1 className="gm-label">Aim and size a reflector</h1>
           {wf.site ? (
             <p className="gm-note" data-testid="plan-site">
-              Site {wf.site.code ?? ''} {fmtDeg(wf.site.latDeg, 5)}, {fmtDeg(wf.site.lonDeg, 5)}
+              Site {wf.site.code ?? ''} {fmtDeg(wf.site.latDeg, 5, units.angleFormat)}, {fmtDeg(wf.site.lonDeg, 5, units.angleFormat)}
             </p>
           ) : null}
           <section className="gm-cards" aria-label="Aim">
