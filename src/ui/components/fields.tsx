@@ -50,29 +50,54 @@ export function NumberField(props: {
         aria-describedby={props.error ? errId : undefined}
         onChange={(e) => props.onChange(e.target.value)}
       />
-      {props.error ? (
-        <p id={errId} className="gm-error" role="alert" data-testid={props.testId ? `${props.testId}-error` : undefined}>
-          {props.error}
-        </p>
-      ) : props.hint ? (
-        <p className="gm-note">{props.hint}</p>
-      ) : null}
+      <FieldNote errId={errId} error={props.error} hint={props.hint} testId={props.testId} />
     </div>
   );
 }
 
-export function TextField(props: { label: string; value: string; onChange: (v: string) => void; testId?: string; multiline?: boolean }) {
+/**
+ * A text field. With `validated` it takes part in a form check as NumberField does: it always states aria-invalid,
+ * browser autofill is off (one-line input), and `error` (else `hint`) is shown under it.
+ */
+export function TextField(props: {
+  label: string;
+  value: string;
+  onChange: (v: string) => void;
+  testId?: string;
+  multiline?: boolean;
+  error?: string;
+  hint?: ReactNode;
+  validated?: boolean;
+}) {
   const id = useId();
+  const errId = `${id}-err`;
+  const checked = props.validated === true || Boolean(props.error);
+  const common = {
+    id,
+    'data-testid': props.testId,
+    value: props.value,
+    onChange: (e: { target: { value: string } }) => props.onChange(e.target.value),
+    'aria-invalid': checked ? (props.error ? ('true' as const) : ('false' as const)) : undefined,
+    'aria-describedby': props.error ? errId : undefined,
+  };
   return (
     <div className="gm-field">
       <label htmlFor={id}>{props.label}</label>
-      {props.multiline ? (
-        <textarea id={id} data-testid={props.testId} value={props.value} onChange={(e) => props.onChange(e.target.value)} />
-      ) : (
-        <input id={id} data-testid={props.testId} value={props.value} onChange={(e) => props.onChange(e.target.value)} />
-      )}
+      {props.multiline ? <textarea {...common} /> : <input {...common} autoComplete={props.validated ? 'off' : undefined} />}
+      <FieldNote errId={errId} error={props.error} hint={props.hint} testId={props.testId} />
     </div>
   );
+}
+
+/** Under a field: its error (announced, and named by the field's aria-describedby), else its hint, else nothing. */
+function FieldNote(props: { errId: string; error?: string; hint?: ReactNode; testId?: string }) {
+  if (props.error)
+    return (
+      <p id={props.errId} className="gm-error" role="alert" data-testid={props.testId ? `${props.testId}-error` : undefined}>
+        {props.error}
+      </p>
+    );
+  return props.hint ? <p className="gm-note">{props.hint}</p> : null;
 }
 
 export function Segmented<T extends string>(props: {

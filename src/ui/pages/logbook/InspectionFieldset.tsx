@@ -1,9 +1,9 @@
 /** The inspection checklist (big OK / Issue / Not checked buttons), re-measured orientation, time, crew, notes. */
 import { CHECKLIST_ITEMS, CHECK_STATES } from '../../../data/index.ts';
-import { NumberField, Segmented } from '../../components/fields.tsx';
+import { Segmented } from '../../components/fields.tsx';
 import { fmtNum } from '../../format.ts';
 import type { Capture } from '../../state/workflow.ts';
-import { TextInput } from './inputs.tsx';
+import { formFields } from './inputs.tsx';
 import { applyCaptureToInspection, type InspectionErrors, type InspectionForm } from './inspectionForm.ts';
 import { CHECK_WORDS, CHECKLIST_LABELS, fmtUtc } from './words.ts';
 
@@ -11,9 +11,7 @@ const CHECK_OPTIONS = CHECK_STATES.map((s) => ({ value: s, label: CHECK_WORDS[s]
 
 export function InspectionFieldset(props: { form: InspectionForm; set: (patch: Partial<InspectionForm>) => void; errors: InspectionErrors; capture: Capture | null }) {
   const { form, set, errors, capture } = props;
-  const n = (k: 'azimuthDeg' | 'tiltDeg' | 'rollDeg', label: string, unit: string, testId: string) => (
-    <NumberField label={label} unit={unit} value={form[k]} onChange={(v) => set({ [k]: v })} error={errors[k]} testId={testId} />
-  );
+  const f = formFields(form, set, errors);
   return (
     <>
       <fieldset className="gm-lb-fieldset" data-testid="checklist">
@@ -42,14 +40,14 @@ export function InspectionFieldset(props: { form: InspectionForm; set: (patch: P
           <p className="gm-note">Measure on the Align tab and come back, or type the readings. Leave all three empty if not re-measured.</p>
         )}
         <div className="gm-row">
-          {n('azimuthDeg', 'Azimuth', '° true', 'insp-az')}
-          {n('tiltDeg', 'Base tilt', '°', 'insp-tilt')}
-          {n('rollDeg', 'Roll', '°', 'insp-roll')}
+          {f.num('azimuthDeg', 'Azimuth', '° true', 'insp-az')}
+          {f.num('tiltDeg', 'Base tilt', '°', 'insp-tilt')}
+          {f.num('rollDeg', 'Roll', '°', 'insp-roll')}
         </div>
       </fieldset>
-      <TextInput label="Inspected at (UTC)" value={form.inspectedAt} onChange={(v) => set({ inspectedAt: v })} error={errors.inspectedAt} testId="insp-at" hint="e.g. 2026-06-15T10:00Z" />
-      <TextInput label="Crew (names, separated by commas)" value={form.crew} onChange={(v) => set({ crew: v })} error={errors.crew} testId="insp-crew" />
-      <TextInput label="Notes" value={form.notes} onChange={(v) => set({ notes: v })} error={errors.notes} testId="insp-notes" multiline />
+      {f.text('inspectedAt', 'Inspected at (UTC)', 'insp-at', { hint: 'e.g. 2026-06-15T10:00Z' })}
+      {f.text('crew', 'Crew (names, separated by commas)', 'insp-crew')}
+      {f.text('notes', 'Notes', 'insp-notes', { multiline: true })}
     </>
   );
 }

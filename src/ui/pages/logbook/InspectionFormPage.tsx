@@ -2,12 +2,12 @@
  * `/logbook/inspection/new/:reflectorId` (a new inspection of one reflector) and `/logbook/inspection/:inspectionId`
  * (a stored one). A new form starts afresh each time the screen is entered.
  */
-import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar, useIonViewWillEnter } from '@ionic/react';
+import { useIonViewWillEnter } from '@ionic/react';
 import { useRef, useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { EditInspection } from './EditInspection.tsx';
+import { LogbookShell } from './LogbookShell.tsx';
 import { NewInspection } from './NewInspection.tsx';
-import './logbook.css';
 
 export function InspectionFormPage() {
   const { reflectorId, inspectionId } = useParams<{ reflectorId?: string; inspectionId?: string }>();
@@ -18,17 +18,8 @@ export function InspectionFormPage() {
     entered.current = true;
   });
   return (
-    <IonPage>
-      <IonHeader>
-        <IonToolbar>
-          <IonTitle>{inspectionId ? 'Inspection' : 'New inspection'}</IonTitle>
-        </IonToolbar>
-      </IonHeader>
-      <IonContent className="ion-padding">
-        <main>
-          {inspectionId ? <EditInspection key={inspectionId} id={inspectionId} /> : reflectorId ? <NewInspection key={`${reflectorId}-${session}`} reflectorId={reflectorId} /> : null}
-        </main>
-      </IonContent>
-    </IonPage>
+    <LogbookShell title={inspectionId ? 'Inspection' : 'New inspection'}>
+      {inspectionId ? <EditInspection key={inspectionId} id={inspectionId} /> : reflectorId ? <NewInspection key={`${reflectorId}-${session}`} reflectorId={reflectorId} /> : null}
+    </LogbookShell>
   );
 }

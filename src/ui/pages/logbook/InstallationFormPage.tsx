@@ -2,12 +2,12 @@
  * `/logbook/new-installation` (from the Align capture and the plan) and `/logbook/installation/:installationId`
  * (a stored one). A new form starts afresh when the crew comes back after saving one.
  */
-import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar, useIonViewWillEnter } from '@ionic/react';
+import { useIonViewWillEnter } from '@ionic/react';
 import { useRef, useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { EditInstallation } from './EditInstallation.tsx';
+import { LogbookShell } from './LogbookShell.tsx';
 import { NewInstallation } from './NewInstallation.tsx';
-import './logbook.css';
 
 export function InstallationFormPage() {
   const { installationId } = useParams<{ installationId?: string }>();
@@ -19,24 +19,15 @@ export function InstallationFormPage() {
     setSession((s) => s + 1);
   });
   return (
-    <IonPage>
-      <IonHeader>
-        <IonToolbar>
-          <IonTitle>{installationId ? 'Installation' : 'New installation'}</IonTitle>
-        </IonToolbar>
-      </IonHeader>
-      <IonContent className="ion-padding">
-        <main>
-          {installationId ? (
-            <EditInstallation key={installationId} id={installationId} />
-          ) : (
-            <>
-              <h1 className="gm-label">Record the installation</h1>
-              <NewInstallation key={session} onSaved={() => (savedRef.current = true)} />
-            </>
-          )}
-        </main>
-      </IonContent>
-    </IonPage>
+    <LogbookShell title={installationId ? 'Installation' : 'New installation'}>
+      {installationId ? (
+        <EditInstallation key={installationId} id={installationId} />
+      ) : (
+        <>
+          <h1 className="gm-label">Record the installation</h1>
+          <NewInstallation key={session} onSaved={() => (savedRef.current = true)} />
+        </>
+      )}
+    </LogbookShell>
   );
 }

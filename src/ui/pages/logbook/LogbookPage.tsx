@@ -2,7 +2,6 @@
  * Logbook home: the sites stored on this phone (search by code or name, sort by last visit or distance from here),
  * a "New site" form checked in place, the open merge conflicts, and the way to Settings (backup, export, import).
  */
-import { IonButtons, IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
 import { useEffect, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { getMeta, requestPersistentStorage, useGlintmarkDb, useOpenConflicts, useReflectors, useSites, type Here, type SiteListRow } from '../../../data/index.ts';
@@ -13,9 +12,9 @@ import { BackupReminder } from '../settings/BackupReminder.tsx';
 import { DemoBadge } from './bits.tsx';
 import { TextInput } from './inputs.tsx';
 import { NewSiteCard } from './NewSiteCard.tsx';
+import { LogbookShell } from './LogbookShell.tsx';
 import { useGpsFix } from './useGpsFix.ts';
 import { fmtDistanceM, fmtLastVisit, SORT_OPTIONS, type ListSort } from './words.ts';
-import './logbook.css';
 
 /** Rows shown before "Show more" (each row reads its reflector count). */
 const PAGE_ROWS = 50;
@@ -80,81 +79,74 @@ export function LogbookPage() {
   };
 
   return (
-    <IonPage>
-      <IonHeader>
-        <IonToolbar>
-          <IonTitle>Logbook</IonTitle>
-          <IonButtons slot="end">
-            <Link className="gm-btn gm-lb-linkbtn" to="/settings" data-testid="open-settings">
-              Settings
-            </Link>
-          </IonButtons>
-        </IonToolbar>
-      </IonHeader>
-      <IonContent className="ion-padding">
-        <main>
-          <h1 className="gm-label">Sites on this device</h1>
-          <BackupReminder />
-          {conflicts && conflicts.length > 0 ? (
-            <p className="gm-warn" data-testid="conflicts-count">
-              ⚠ {conflicts.length} merge conflict{conflicts.length === 1 ? '' : 's'} to review: <Link to="/settings">open Settings</Link>.
-            </p>
-          ) : null}
-          {persistenceDenied ? (
-            <p className="gm-warn" data-testid="persistence-denied">
-              This browser may clear stored data when the phone runs short of space. Make backups often (Settings).
-            </p>
-          ) : null}
-          <div className="gm-lb-actions">
-            <button type="button" className="gm-btn gm-primary" onClick={() => setAdding((a) => !a)} aria-expanded={adding} data-testid="new-site">
-              {adding ? 'Close the new-site form' : '+ New site'}
-            </button>
-          </div>
-          {adding ? <NewSiteCard /> : null}
+    <LogbookShell
+      title="Logbook"
+      end={
+        <Link className="gm-btn gm-lb-linkbtn" to="/settings" data-testid="open-settings">
+          Settings
+        </Link>
+      }
+    >
+      <h1 className="gm-label">Sites on this device</h1>
+      <BackupReminder />
+      {conflicts && conflicts.length > 0 ? (
+        <p className="gm-warn" data-testid="conflicts-count">
+          ⚠ {conflicts.length} merge conflict{conflicts.length === 1 ? '' : 's'} to review: <Link to="/settings">open Settings</Link>.
+        </p>
+      ) : null}
+      {persistenceDenied ? (
+        <p className="gm-warn" data-testid="persistence-denied">
+          This browser may clear stored data when the phone runs short of space. Make backups often (Settings).
+        </p>
+      ) : null}
+      <div className="gm-lb-actions">
+        <button type="button" className="gm-btn gm-primary" onClick={() => setAdding((a) => !a)} aria-expanded={adding} data-testid="new-site">
+          {adding ? 'Close the new-site form' : '+ New site'}
+        </button>
+      </div>
+      {adding ? <NewSiteCard /> : null}
 
-          <section className="gm-section" aria-labelledby="sites-h">
-            <h2 id="sites-h">Sites</h2>
-            <div className="gm-lb-search">
-              <TextInput label="Search by code, name or notes" value={search} onChange={setSearch} testId="site-search" />
-            </div>
-            <div className="gm-lb-seg-wrap">
-              <Segmented label="Sort by" value={sort} options={SORT_OPTIONS} onChange={(v) => void chooseSort(v)} testId="site-sort" />
-            </div>
-            {sort === 'distance' ? (
-              <p className={here ? 'gm-note' : 'gm-warn'} data-testid="distance-from">
-                {gps.busy
-                  ? 'Reading your position…'
-                  : here
-                    ? `Distances from ${here.from}.`
-                    : `${gps.error ?? 'No position yet.'} Without a position the list is sorted by code.`}
-              </p>
+      <section className="gm-section" aria-labelledby="sites-h">
+        <h2 id="sites-h">Sites</h2>
+        <div className="gm-lb-search">
+          <TextInput label="Search by code, name or notes" value={search} onChange={setSearch} testId="site-search" />
+        </div>
+        <div className="gm-lb-seg-wrap">
+          <Segmented label="Sort by" value={sort} options={SORT_OPTIONS} onChange={(v) => void chooseSort(v)} testId="site-sort" />
+        </div>
+        {sort === 'distance' ? (
+          <p className={here ? 'gm-note' : 'gm-warn'} data-testid="distance-from">
+            {gps.busy
+              ? 'Reading your position…'
+              : here
+                ? `Distances from ${here.from}.`
+                : `${gps.error ?? 'No position yet.'} Without a position the list is sorted by code.`}
+          </p>
+        ) : null}
+        {rows === undefined ? (
+          <p>Loading…</p>
+        ) : rows.length === 0 ? (
+          <p className="gm-note" data-testid="no-sites">
+            {search.trim() ? `No site matches “${search.trim()}”.` : 'No sites yet. Add one with “New site”, or restore a backup in Settings.'}
+          </p>
+        ) : (
+          <>
+            <p className="gm-note" data-testid="site-count">
+              {rows.length} site{rows.length === 1 ? '' : 's'}
+            </p>
+            <ul className="gm-lb-list" data-testid="site-list">
+              {rows.slice(0, rowsShown).map((r) => (
+                <SiteRow key={r.site.id} row={r} nowMs={nowMs} />
+              ))}
+            </ul>
+            {rows.length > rowsShown ? (
+              <button type="button" className="gm-btn" onClick={() => setRowsShown((n) => n + PAGE_ROWS)} data-testid="more-sites">
+                Show {Math.min(PAGE_ROWS, rows.length - rowsShown)} more
+              </button>
             ) : null}
-            {rows === undefined ? (
-              <p>Loading…</p>
-            ) : rows.length === 0 ? (
-              <p className="gm-note" data-testid="no-sites">
-                {search.trim() ? `No site matches “${search.trim()}”.` : 'No sites yet. Add one with “New site”, or restore a backup in Settings.'}
-              </p>
-            ) : (
-              <>
-                <p className="gm-note" data-testid="site-count">
-                  {rows.length} site{rows.length === 1 ? '' : 's'}
-                </p>
-                <ul className="gm-lb-list" data-testid="site-list">
-                  {rows.slice(0, rowsShown).map((r) => (
-                    <SiteRow key={r.site.id} row={r} nowMs={nowMs} />
-                  ))}
-                </ul>
-                {rows.length > rowsShown ? (
-                  <button type="button" className="gm-btn" onClick={() => setRowsShown((n) => n + PAGE_ROWS)} data-testid="more-sites">
-                    Show {Math.min(PAGE_ROWS, rows.length - rowsShown)} more
-                  </button>
-                ) : null}
-              </>
-            )}
-          </section>
-        </main>
-      </IonContent>
-    </IonPage>
+          </>
+        )}
+      </section>
+    </LogbookShell>
   );
 }

@@ -5,15 +5,16 @@ import { reflectorRepo, useGlintmarkDb, useSite, type InspectionRecord, type Ref
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
+import { DraftRestoredBanner, NotStored, PhotoErrors } from './banners.tsx';
 import { BackLink, ErrorNote, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { InspectionFieldset } from './InspectionFieldset.tsx';
 import { checklistSummary, isInspectionForm, newInspectionForm, parseInspectionForm, type InspectionForm } from './inspectionForm.ts';
 import { PendingPhotos } from './Photos.tsx';
-import { createInspection, type SaveOutcome } from './saveRecords.ts';
+import { createInspection, pendingPhotos, type SaveOutcome } from './saveRecords.ts';
 import { useFormDraft } from './useFormDraft.ts';
-import { CHECKLIST_LABELS, fmtUtc, photoRoleLabel, writtenBy } from './words.ts';
+import { CHECKLIST_LABELS, fmtUtc, writtenBy } from './words.ts';
 
 function Form(props: { reflector: ReflectorRecord }) {
   const r = props.reflector;
@@ -50,8 +51,7 @@ function Form(props: { reflector: ReflectorRecord }) {
     }
     setBusy(true);
     try {
-      const pending = Object.entries(photos).flatMap(([role, blob]) => (blob ? [{ role, blob }] : []));
-      const out = await createInspection(db, parsed.fields, pending, writtenBy(st.crewName, parsed.fields.crew));
+      const out = await createInspection(db, parsed.fields, pendingPhotos(photos), writtenBy(st.crewName, parsed.fields.crew));
       await draft.clear();
       setPhotos({});
       setSaved(out);
@@ -80,11 +80,7 @@ function Form(props: { reflector: ReflectorRecord }) {
             Inspection of {fmtUtc(saved.record.inspectedAtMs)}: {checklistSummary(saved.record.checklist, CHECKLIST_LABELS)}; {saved.record.photoIds.length} photo
             {saved.record.photoIds.length === 1 ? '' : 's'}.
           </p>
-          {saved.photoErrors.map((e) => (
-            <p key={e.role} className="gm-error" role="alert" data-testid={`photo-error-${e.role}`}>
-              {photoRoleLabel(e.role)}: {e.message}
-            </p>
-          ))}
+          <PhotoErrors errors={saved.photoErrors} />
           <div className="gm-lb-actions">
             <Link className="gm-btn gm-lb-linkbtn gm-primary" to={`/logbook/site/${r.siteId}`} data-testid="view-site">
               View site
@@ -99,14 +95,7 @@ function Form(props: { reflector: ReflectorRecord }) {
   return (
     <>
       {head}
-      {draft.restoredAtMs !== null ? (
-        <div className="gm-card" role="status" data-testid="draft-restored">
-          <p>Draft restored from {fmtUtc(draft.restoredAtMs)}.</p>
-          <button type="button" className="gm-btn" onClick={() => void discard()} data-testid="discard-draft">
-            Discard draft
-          </button>
-        </div>
-      ) : null}
+      <DraftRestoredBanner restoredAtMs={draft.restoredAtMs} onDiscard={() => void discard()} />
       <ErrorNote message={draft.error} testId="draft-error" />
       <InspectionFieldset form={form} set={update} errors={errors} capture={wf.capture} />
       <PendingPhotos files={photos} onChange={(role, f) => setPhotos((p) => ({ ...p, [role]: f }))} errors={{}} />
@@ -136,12 +125,9 @@ export function NewInspection(props: { reflectorId: string }) {
   if (reflector === undefined) return <p>Loading…</p>;
   if (reflector === null)
     return (
-      <>
-        <BackLink to="/logbook">Logbook</BackLink>
-        <p className="gm-warn" data-testid="reflector-missing">
-          This reflector is not (or no longer) stored on this device.
-        </p>
-      </>
+      <NotStored back="Logbook" testId="reflector-missing">
+        This reflector is not (or no longer) stored on this device.
+      </NotStored>
     );
   return <Form reflector={reflector} />;
 }

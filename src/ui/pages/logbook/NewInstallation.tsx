@@ -11,6 +11,7 @@ import { fmtNum } from '../../format.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
+import { DraftRestoredBanner, PhotoErrors } from './banners.tsx';
 import { ErrorNote, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { plannedGeometryFields } from './geometryPlan.ts';
@@ -18,11 +19,11 @@ import { shownErrors } from './inputs.tsx';
 import { InstallationFieldset } from './InstallationFieldset.tsx';
 import { applyCapture, captureLossUnstorable, installationFormFromWorkflow, isInstallationForm, parseInstallationForm, type InstallationForm } from './installationForm.ts';
 import { PendingPhotos } from './Photos.tsx';
-import { createInstallation, type SaveOutcome } from './saveRecords.ts';
+import { createInstallation, pendingPhotos, type SaveOutcome } from './saveRecords.ts';
 import { SiteReflectorPicker } from './SiteReflectorPicker.tsx';
 import { findWorkflowSite } from './siteForm.ts';
 import { useFormDraft } from './useFormDraft.ts';
-import { fmtUtc, photoRoleLabel, writtenBy } from './words.ts';
+import { fmtUtc, writtenBy } from './words.ts';
 
 export const INSTALLATION_DRAFT_KEY = 'installation-form';
 
@@ -41,11 +42,7 @@ function SavedPanel(props: { out: SaveOutcome<InstallationRecord>; geometryNotes
         {fmtNum(record.measuredRollDeg, 2)}°; {record.photoIds.length} photo{record.photoIds.length === 1 ? '' : 's'}, {record.geometryIds.length} planned geometr
         {record.geometryIds.length === 1 ? 'y' : 'ies'}.
       </p>
-      {photoErrors.map((e) => (
-        <p key={e.role} className="gm-error" role="alert" data-testid={`photo-error-${e.role}`}>
-          {photoRoleLabel(e.role)}: {e.message}
-        </p>
-      ))}
+      <PhotoErrors errors={photoErrors} />
       {props.geometryNotes.map((t, i) => (
         <p key={i} className="gm-warn">
           {t}
@@ -130,8 +127,7 @@ export function NewInstallation(props: { onSaved: () => void }) {
     }
     setBusy(true);
     try {
-      const pending = Object.entries(photos).flatMap(([role, blob]) => (blob ? [{ role, blob }] : []));
-      const out = await createInstallation(db, parsed.fields, geo.fields, pending, writtenBy(st.crewName, parsed.fields.crew));
+      const out = await createInstallation(db, parsed.fields, geo.fields, pendingPhotos(photos), writtenBy(st.crewName, parsed.fields.crew));
       await draft.clear();
       setPhotos({});
       setSaved({ out, geometryNotes: geo.errors });
@@ -146,14 +142,7 @@ export function NewInstallation(props: { onSaved: () => void }) {
   if (saved) return <SavedPanel out={saved.out} geometryNotes={saved.geometryNotes} />;
   return (
     <>
-      {draft.restoredAtMs !== null ? (
-        <div className="gm-card" role="status" data-testid="draft-restored">
-          <p>Draft restored from {fmtUtc(draft.restoredAtMs)}.</p>
-          <button type="button" className="gm-btn" onClick={() => void discard()} data-testid="discard-draft">
-            Discard draft
-          </button>
-        </div>
-      ) : null}
+      <DraftRestoredBanner restoredAtMs={draft.restoredAtMs} onDiscard={() => void discard()} />
       <ErrorNote message={draft.error} testId="draft-error" />
       {newerCapture && dirty ? (
         <p className="gm-warn" data-testid="newer-capture">

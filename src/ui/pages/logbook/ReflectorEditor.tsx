@@ -1,12 +1,13 @@
 /** Add or edit a reflector: label, shape, inner edge, construction, apex and antenna offset (units in every label). */
 import { useState } from 'react';
 import { reflectorRepo, useGlintmarkDb, withReopen, type ReflectorRecord } from '../../../data/index.ts';
-import { NumberField, Segmented } from '../../components/fields.tsx';
+import { Segmented } from '../../components/fields.tsx';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
+import { ApplyToCurrentButton } from './banners.tsx';
 import { ErrorNote, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
-import { shownErrors, TextInput } from './inputs.tsx';
+import { formFields, shownErrors } from './inputs.tsx';
 import { parseReflectorForm, reflectorFormFromRecord, type ReflectorForm } from './reflectorForm.ts';
 import { changedFields, withoutMeta } from './siteForm.ts';
 import { writtenBy } from './words.ts';
@@ -63,44 +64,42 @@ export function ReflectorEditor(props: {
     }
   };
 
-  const n = (k: keyof ReflectorForm, label: string, unit: string, testId: string) => (
-    <NumberField label={label} unit={unit} value={form[k] as string} onChange={(v) => set({ [k]: v })} error={errors[k]} testId={testId} />
-  );
+  const f = formFields(form, set, errors);
   return (
     <section className="gm-card" aria-label={props.existing ? `Edit reflector ${props.existing.label}` : 'New reflector'} data-testid="reflector-form">
       <h3>{props.existing ? `Edit reflector ${props.existing.label}` : 'New reflector'}</h3>
       <div className="gm-row">
-        <TextInput label="Label" value={form.label} onChange={(v) => set({ label: v })} error={errors.label} testId="refl-label" />
+        {f.text('label', 'Label', 'refl-label')}
         <Segmented label="Shape" value={form.shape} options={[{ value: 'triangular', label: 'Triangular' }, { value: 'square', label: 'Square' }]} onChange={(v) => set({ shape: v })} testId="refl-shape" />
-        {n('edgeM', 'Inner edge', 'm', 'refl-edge')}
-        {n('apexHeightAboveMarkM', 'Apex height above the mark', 'm', 'refl-apex-above-mark')}
+        {f.num('edgeM', 'Inner edge', 'm', 'refl-edge')}
+        {f.num('apexHeightAboveMarkM', 'Apex height above the mark', 'm', 'refl-apex-above-mark')}
       </div>
       <fieldset className="gm-lb-fieldset">
         <legend>Construction</legend>
         <div className="gm-row">
           <Segmented label="Panels" value={form.panels} options={[{ value: 'solid', label: 'Solid' }, { value: 'mesh', label: 'Mesh' }]} onChange={(v) => set({ panels: v })} testId="refl-panels" />
-          {form.panels === 'mesh' ? n('meshOpeningMm', 'Mesh opening', 'mm', 'refl-mesh') : null}
+          {form.panels === 'mesh' ? f.num('meshOpeningMm', 'Mesh opening', 'mm', 'refl-mesh') : null}
         </div>
-        <TextInput label="Drainage" value={form.drainage} onChange={(v) => set({ drainage: v })} error={errors.drainage} testId="refl-drainage" hint="e.g. three 20 mm holes at the apex" />
-        <TextInput label="Foundation" value={form.foundation} onChange={(v) => set({ foundation: v })} error={errors.foundation} testId="refl-foundation" hint="e.g. concrete pillar 0.6 m deep" />
+        {f.text('drainage', 'Drainage', 'refl-drainage', { hint: 'e.g. three 20 mm holes at the apex' })}
+        {f.text('foundation', 'Foundation', 'refl-foundation', { hint: 'e.g. concrete pillar 0.6 m deep' })}
       </fieldset>
       <fieldset className="gm-lb-fieldset">
         <legend>Surveyed apex position (optional)</legend>
         <div className="gm-row">
-          {n('apexLatDeg', 'Apex latitude', '° N+', 'refl-apex-lat')}
-          {n('apexLonDeg', 'Apex longitude', '° E+', 'refl-apex-lon')}
-          {n('apexHeightEllM', 'Apex ellipsoidal height', 'm', 'refl-apex-h')}
+          {f.num('apexLatDeg', 'Apex latitude', '° N+', 'refl-apex-lat')}
+          {f.num('apexLonDeg', 'Apex longitude', '° E+', 'refl-apex-lon')}
+          {f.num('apexHeightEllM', 'Apex ellipsoidal height', 'm', 'refl-apex-h')}
         </div>
       </fieldset>
       <fieldset className="gm-lb-fieldset">
         <legend>GNSS antenna reference point offset from the apex (optional)</legend>
         <div className="gm-row">
-          {n('arpEastM', 'East', 'm', 'refl-arp-e')}
-          {n('arpNorthM', 'North', 'm', 'refl-arp-n')}
-          {n('arpUpM', 'Up', 'm', 'refl-arp-u')}
+          {f.num('arpEastM', 'East', 'm', 'refl-arp-e')}
+          {f.num('arpNorthM', 'North', 'm', 'refl-arp-n')}
+          {f.num('arpUpM', 'Up', 'm', 'refl-arp-u')}
         </div>
       </fieldset>
-      <TextInput label="Notes" value={form.notes} onChange={(v) => set({ notes: v })} error={errors.notes} testId="refl-notes" multiline />
+      {f.text('notes', 'Notes', 'refl-notes', { multiline: true })}
       <div className="gm-lb-actions">
         <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-reflector">
           {busy ? 'Saving…' : 'Save reflector'}
@@ -110,11 +109,7 @@ export function ReflectorEditor(props: {
         </button>
       </div>
       <ErrorNote message={error} />
-      {stale ? (
-        <button type="button" className="gm-btn gm-primary" onClick={() => void save('current')} data-testid="apply-to-current">
-          Apply my changes to the current version
-        </button>
-      ) : null}
+      {stale ? <ApplyToCurrentButton onClick={() => void save('current')} /> : null}
       {saved ? <SavedNote /> : null}
     </section>
   );

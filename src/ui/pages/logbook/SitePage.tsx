@@ -2,23 +2,24 @@
  * One site: details (units in labels), reflectors, planned geometries, installations, inspections and the history
  * timeline; "Use this site" hands it to Plan or Passes; delete is soft, with Undo.
  */
-import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
 import { useEffect, useState } from 'react';
 import { useHistory, useParams } from 'react-router-dom';
 import { siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
+import { ApplyToCurrentButton, DeletedBanner, NotStored } from './banners.tsx';
 import { BackLink, DemoBadge, ErrorNote, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
+import { LogbookShell } from './LogbookShell.tsx';
 import { changedFields, parseSiteForm, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
 import { SiteFormFields } from './SiteFormFields.tsx';
 import { GeometryTable, InspectionList, InstallationList, ReflectorSection, SiteDetails } from './SiteSections.tsx';
 import { Timeline } from './Timeline.tsx';
 import { loadSiteTimeline, type TimelineEntry } from './timeline.ts';
+import { useToggleDeleted } from './useToggleDeleted.ts';
 import { writtenBy } from './words.ts';
-import './logbook.css';
 
 function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void }) {
   const db = useGlintmarkDb();
@@ -61,11 +62,7 @@ function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void 
         </button>
       </div>
       <ErrorNote message={error} />
-      {stale ? (
-        <button type="button" className="gm-btn gm-primary" onClick={() => void save('current')} data-testid="apply-to-current">
-          Apply my changes to the current version
-        </button>
-      ) : null}
+      {stale ? <ApplyToCurrentButton onClick={() => void save('current')} /> : null}
     </section>
   );
 }
@@ -95,19 +92,7 @@ function SiteBody(props: { detail: SiteDetail }) {
     workflow.set({ site: siteInputFromRecord(site) });
     nav.push(path);
   };
-  const run = async (op: () => Promise<unknown>, done: string) => {
-    setError(null);
-    setSaved(null);
-    try {
-      await withReopen(db, op);
-      setSaved(done);
-    } catch (e) {
-      setError(saveErrorMessage(e, false));
-    }
-  };
-  const ctx = () => ({ by: writtenBy(st.crewName), expectedRev: site.rev });
-  const del = () => run(() => siteRepo.softDelete(db, site.id, ctx()), `Site ${site.code} deleted on this device`);
-  const undo = () => run(() => siteRepo.undelete(db, site.id, ctx()), `Site ${site.code} restored on this device`);
+  const toggleDeleted = useToggleDeleted(siteRepo, site, writtenBy(st.crewName), `Site ${site.code}`, { setSaved, setError });
 
   return (
     <>
@@ -117,15 +102,10 @@ function SiteBody(props: { detail: SiteDetail }) {
       </h1>
       {site.name ? <p className="gm-lb-text">{site.name}</p> : null}
       {deleted ? (
-        <div className="gm-lb-deleted" role="status" data-testid="site-deleted">
-          <p>
-            <b>✕ This site is deleted</b> (with the reflectors, installations and inspections deleted with it). Nothing is lost until you remove
-            it for good: Undo restores them all.
-          </p>
-          <button type="button" className="gm-btn gm-primary" onClick={() => void undo()} data-testid="undo-delete">
-            Undo delete
-          </button>
-        </div>
+        <DeletedBanner testId="site-deleted" onUndo={() => void toggleDeleted()}>
+          <b>✕ This site is deleted</b> (with the reflectors, installations and inspections deleted with it). Nothing is lost until you remove it
+          for good: Undo restores them all.
+        </DeletedBanner>
       ) : null}
       {saved ? <SavedNote>{saved}</SavedNote> : null}
       <ErrorNote message={error} />
@@ -162,7 +142,7 @@ function SiteBody(props: { detail: SiteDetail }) {
             <button type="button" className="gm-btn" onClick={() => setEditing(true)} data-testid="edit-site">
               Edit site
             </button>
-            <button type="button" className="gm-btn" onClick={() => void del()} data-testid="delete-site">
+            <button type="button" className="gm-btn" onClick={() => void toggleDeleted()} data-testid="delete-site">
               Delete site
             </button>
           </div>
@@ -195,12 +175,9 @@ function SiteScreen(props: { siteId: string }) {
   if (detail === undefined) return <p>Loading…</p>;
   if (detail === null)
     return (
-      <>
-        <BackLink to="/logbook">All sites</BackLink>
-        <p className="gm-warn" data-testid="site-missing">
-          This site is not stored on this device.
-        </p>
-      </>
+      <NotStored back="All sites" testId="site-missing">
+        This site is not stored on this device.
+      </NotStored>
     );
   return <SiteBody detail={detail} />;
 }
@@ -208,17 +185,8 @@ function SiteScreen(props: { siteId: string }) {
 export function SitePage() {
   const { siteId } = useParams<{ siteId: string }>();
   return (
-    <IonPage>
-      <IonHeader>
-        <IonToolbar>
-          <IonTitle>Site</IonTitle>
-        </IonToolbar>
-      </IonHeader>
-      <IonContent className="ion-padding">
-        <main>
-          <SiteScreen key={siteId} siteId={siteId} />
-        </main>
-      </IonContent>
-    </IonPage>
+    <LogbookShell title="Site">
+      <SiteScreen key={siteId} siteId={siteId} />
+    </LogbookShell>
   );
 }

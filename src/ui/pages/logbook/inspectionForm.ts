@@ -12,8 +12,8 @@ import {
 } from '../../../data/index.ts';
 import { fmtNum } from '../../format.ts';
 import type { Capture } from '../../state/workflow.ts';
-import { note, num, RANGES, utcTime, wrapRollDeg, type FieldErrors } from './parse.ts';
-import { isoExactUtc, isoSecondsUtc, parseCrew } from './words.ts';
+import { allBlank, crewNames, groupNum, hasErrors, isStr, note, RANGES, utcTime, wrapRollDeg, type FieldErrors } from './parse.ts';
+import { isoExactUtc, isoSecondsUtc } from './words.ts';
 
 export interface InspectionForm {
   siteId: string;
@@ -86,25 +86,23 @@ export function inspectionFormFromRecord(r: InspectionRecord): InspectionForm {
 
 export function parseInspectionForm(f: InspectionForm): { fields: Omit<InspectionFields, 'photoIds'> | null; errors: InspectionErrors } {
   const at = utcTime('Inspected at (UTC)', f.inspectedAt);
-  const none = [f.azimuthDeg, f.tiltDeg, f.rollDeg].every((x) => x.trim() === '');
-  const az = none ? {} : num('Re-measured azimuth', f.azimuthDeg, RANGES.azimuthDeg);
-  const tilt = none ? {} : num('Re-measured tilt', f.tiltDeg, RANGES.tiltDeg);
-  const roll = none ? {} : num('Re-measured roll', f.rollDeg, RANGES.rollDeg);
-  const crew = parseCrew(f.crew);
-  const crewBad = crew.find((c) => c.length > 80);
+  const none = allBlank(f.azimuthDeg, f.tiltDeg, f.rollDeg);
+  const az = groupNum(!none, 'Re-measured azimuth', f.azimuthDeg, RANGES.azimuthDeg);
+  const tilt = groupNum(!none, 'Re-measured tilt', f.tiltDeg, RANGES.tiltDeg);
+  const roll = groupNum(!none, 'Re-measured roll', f.rollDeg, RANGES.rollDeg);
+  const crew = crewNames(f.crew);
   const notes = note('Notes', f.notes);
   const errors: InspectionErrors = {
     siteId: f.siteId ? undefined : 'The reflector’s site is missing',
     reflectorId: f.reflectorId ? undefined : 'Choose the reflector',
     inspectedAt: at.error,
-    azimuthDeg: 'error' in az ? az.error : undefined,
-    tiltDeg: 'error' in tilt ? tilt.error : undefined,
-    rollDeg: 'error' in roll ? roll.error : undefined,
-    crew: crewBad ? `Crew name "${crewBad.slice(0, 20)}…" is longer than 80 characters` : undefined,
+    azimuthDeg: az.error,
+    tiltDeg: tilt.error,
+    rollDeg: roll.error,
+    crew: crew.error,
     notes: notes.error,
   };
-  if (Object.values(errors).some((e) => e !== undefined)) return { fields: null, errors };
-  const v = (p: { value?: number }) => p.value as number;
+  if (hasErrors(errors)) return { fields: null, errors };
   return {
     errors: {},
     fields: {
@@ -112,8 +110,8 @@ export function parseInspectionForm(f: InspectionForm): { fields: Omit<Inspectio
       siteId: f.siteId,
       inspectedAtMs: at.value!,
       checklist: { ...f.checklist },
-      remeasured: none ? null : { azimuthDeg: v(az), tiltDeg: v(tilt), rollDeg: wrapRollDeg(v(roll)) },
-      crew,
+      remeasured: none ? null : { azimuthDeg: az.value!, tiltDeg: tilt.value!, rollDeg: wrapRollDeg(roll.value!) },
+      crew: crew.value,
       notes: notes.value!,
       demo: false,
     },
@@ -128,8 +126,6 @@ export function checklistSummary(c: Checklist, labels: Record<string, string>): 
   if (okCount === CHECKLIST_ITEMS.length) return `all ${okCount} OK`;
   return `${okCount} OK, ${CHECKLIST_ITEMS.length - okCount} not checked`;
 }
-
-const isStr = (x: unknown): x is string => typeof x === 'string';
 
 /** Accept a stored draft only with the current shape (it may come from an older app). */
 export function isInspectionForm(v: unknown): v is InspectionForm {

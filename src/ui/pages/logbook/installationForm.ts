@@ -7,8 +7,8 @@ import { AZIMUTH_METHODS, type AzimuthMethod, type InstallationFields, type Inst
 import { fmtNum } from '../../format.ts';
 import type { Capture, GeometryInput, Workflow } from '../../state/workflow.ts';
 import { bandFrequencyGhz } from './geometryPlan.ts';
-import { line, note, num, optNum, RANGES, utcTime, wrapLonDeg, wrapRollDeg, type FieldErrors } from './parse.ts';
-import { isoExactUtc, isoSecondsUtc, parseCrew } from './words.ts';
+import { allBlank, crewNames, groupNum, hasErrors, isStr, line, note, num, optNum, RANGES, utcTime, wrapLonDeg, wrapRollDeg, type Checked, type FieldErrors } from './parse.ts';
+import { isoExactUtc, isoSecondsUtc } from './words.ts';
 
 export interface InstallationForm {
   siteId: string;
@@ -146,14 +146,13 @@ export function parseInstallationForm(f: InstallationForm): { fields: Installati
   const decl = optNum('Declination', f.declinationDeg, RANGES.declinationDeg);
   const model = line('Declination model', f.declinationModel, { max: 40 });
   const loss = optNum('Predicted loss', f.predictedLossDb, RANGES.lossDb);
-  const noFix = [f.fixLatDeg, f.fixLonDeg, f.fixAccuracyM, f.fixAt].every((x) => x.trim() === '');
-  const fLat = noFix ? {} : num('Fix latitude', f.fixLatDeg, RANGES.latDeg);
-  const fLon = noFix ? {} : num('Fix longitude', f.fixLonDeg, RANGES.lonDeg);
-  const fAcc = noFix ? {} : num('Fix accuracy', f.fixAccuracyM, RANGES.accuracyM);
-  const fAt = noFix ? {} : utcTime('Fix time (UTC)', f.fixAt);
+  const noFix = allBlank(f.fixLatDeg, f.fixLonDeg, f.fixAccuracyM, f.fixAt);
+  const fLat = groupNum(!noFix, 'Fix latitude', f.fixLatDeg, RANGES.latDeg);
+  const fLon = groupNum(!noFix, 'Fix longitude', f.fixLonDeg, RANGES.lonDeg);
+  const fAcc = groupNum(!noFix, 'Fix accuracy', f.fixAccuracyM, RANGES.accuracyM);
+  const fAt: Checked<number> = noFix ? {} : utcTime('Fix time (UTC)', f.fixAt);
   const at = utcTime('Installed at (UTC)', f.installedAt);
-  const crewNames = parseCrew(f.crew);
-  const crewBad = crewNames.find((c) => c.length > 80);
+  const crew = crewNames(f.crew);
   const notes = note('Notes', f.notes);
   const errors: InstallationErrors = {
     siteId: f.siteId ? undefined : 'Choose the site',
@@ -168,16 +167,15 @@ export function parseInstallationForm(f: InstallationForm): { fields: Installati
       decl.error ?? (f.azimuthMethod === 'compass' && decl.value === null ? 'A compass azimuth needs the declination that made it true (east +)' : undefined),
     declinationModel: model.error ?? (model.value && decl.value === null ? 'A declination model is named but no declination is given' : undefined),
     predictedLossDb: loss.error,
-    fixLatDeg: 'error' in fLat ? fLat.error : undefined,
-    fixLonDeg: 'error' in fLon ? fLon.error : undefined,
-    fixAccuracyM: 'error' in fAcc ? fAcc.error : undefined,
-    fixAt: 'error' in fAt ? fAt.error : undefined,
+    fixLatDeg: fLat.error,
+    fixLonDeg: fLon.error,
+    fixAccuracyM: fAcc.error,
+    fixAt: fAt.error,
     installedAt: at.error,
-    crew: crewBad ? `Crew name "${crewBad.slice(0, 20)}…" is longer than 80 characters` : undefined,
+    crew: crew.error,
     notes: notes.error,
   };
-  if (Object.values(errors).some((e) => e !== undefined)) return { fields: null, errors };
-  const v = (p: { value?: number }) => p.value as number;
+  if (hasErrors(errors)) return { fields: null, errors };
   return {
     errors: {},
     fields: {
@@ -191,17 +189,15 @@ export function parseInstallationForm(f: InstallationForm): { fields: Installati
       azimuthMethod: f.azimuthMethod,
       declinationDeg: decl.value ?? null,
       declinationModel: model.value ? model.value : null,
-      fix: noFix ? null : { latDeg: v(fLat), lonDeg: wrapLonDeg(v(fLon)), accuracyM: v(fAcc), atMs: v(fAt) },
+      fix: noFix ? null : { latDeg: fLat.value!, lonDeg: wrapLonDeg(fLon.value!), accuracyM: fAcc.value!, atMs: fAt.value! },
       predictedLossDb: loss.value ?? null,
-      crew: crewNames,
+      crew: crew.value,
       installedAtMs: at.value!,
       notes: notes.value!,
       demo: false,
     },
   };
 }
-
-const isStr = (x: unknown): x is string => typeof x === 'string';
 
 /** A draft read back from the database may come from an older app: accept it only with the current shape. */
 export function isInstallationForm(v: unknown): v is InstallationForm {

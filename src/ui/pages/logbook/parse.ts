@@ -5,14 +5,42 @@
 import { parseIsoUtcMs } from '../../../core/time.ts';
 import { requireInRange, type RangeSpec } from '../../../core/validate.ts';
 import { parseField } from '../../components/fields.tsx';
+import { parseCrew } from './words.ts';
 
 /** Errors by form field; a field without an entry is fine. */
 export type FieldErrors<K extends string> = Partial<Record<K, string>>;
 
+/** A checked field: its value when fine, else its error; neither for a field left out of the check. */
+export interface Checked<T> {
+  value?: T;
+  error?: string;
+}
+
+/** True when any field has an error. */
+export const hasErrors = (errors: FieldErrors<string>): boolean => Object.values(errors).some((e) => e !== undefined);
+
 /** A required number inside a range ("Latitude must be in [-90, 90]°, got 95"). */
-export function num(label: string, text: string, spec: RangeSpec): { value?: number; error?: string } {
+export function num(label: string, text: string, spec: RangeSpec): Checked<number> {
   return parseField(label, text, (n, v) => requireInRange(n, v, spec));
 }
+
+/** A number of an optional group (apex, fix, re-measurement): checked as `num` when the group is used, else nothing. */
+export function groupNum(used: boolean, label: string, text: string, spec: RangeSpec): Checked<number> {
+  return used ? num(label, text, spec) : {};
+}
+
+/** True when every field of a group is empty (the group is not used). */
+export const allBlank = (...texts: string[]): boolean => texts.every((x) => x.trim() === '');
+
+/** The crew names typed on a form (see parseCrew); each at most 80 characters. */
+export function crewNames(text: string): { value: string[]; error?: string } {
+  const names = parseCrew(text);
+  const bad = names.find((c) => c.length > 80);
+  return { value: names, error: bad ? `Crew name "${bad.slice(0, 20)}…" is longer than 80 characters` : undefined };
+}
+
+/** For draft-shape checks: a stored value is a string. */
+export const isStr = (x: unknown): x is string => typeof x === 'string';
 
 /** An optional number: an empty field is null (unknown), anything else must be a number in range. */
 export function optNum(label: string, text: string, spec: RangeSpec): { value?: number | null; error?: string } {

@@ -3,7 +3,7 @@
  * The apex position and the GNSS antenna offset are optional as a whole: all three boxes empty = not surveyed. Pure.
  */
 import type { ReflectorFields, ReflectorRecord, ReflectorShape } from '../../../data/index.ts';
-import { line, note, num, RANGES, wrapLonDeg, type FieldErrors } from './parse.ts';
+import { allBlank, groupNum, hasErrors, line, note, num, RANGES, wrapLonDeg, type FieldErrors } from './parse.ts';
 
 export interface ReflectorForm {
   label: string;
@@ -46,41 +46,39 @@ export interface ParsedReflector {
   errors: FieldErrors<keyof ReflectorForm>;
 }
 
-const blank = (...xs: string[]) => xs.every((x) => x.trim() === '');
 
 export function parseReflectorForm(f: ReflectorForm, siteId: string): ParsedReflector {
   const label = line('Reflector label', f.label, { min: 1, max: 80 });
   const edge = num('Inner edge', f.edgeM, RANGES.edgeM);
-  const mesh = f.panels === 'mesh' && f.meshOpeningMm.trim() !== '' ? num('Mesh opening', f.meshOpeningMm, RANGES.meshOpeningMm) : {};
+  const mesh = groupNum(f.panels === 'mesh' && f.meshOpeningMm.trim() !== '', 'Mesh opening', f.meshOpeningMm, RANGES.meshOpeningMm);
   const drainage = note('Drainage', f.drainage, 2000);
   const foundation = note('Foundation', f.foundation, 2000);
   const aboveMark = num('Apex height above the mark', f.apexHeightAboveMarkM, RANGES.apexAboveMarkM);
-  const noApex = blank(f.apexLatDeg, f.apexLonDeg, f.apexHeightEllM);
-  const aLat = noApex ? {} : num('Apex latitude', f.apexLatDeg, RANGES.latDeg);
-  const aLon = noApex ? {} : num('Apex longitude', f.apexLonDeg, RANGES.lonDeg);
-  const aH = noApex ? {} : num('Apex ellipsoidal height', f.apexHeightEllM, RANGES.heightEllM);
-  const noArp = blank(f.arpEastM, f.arpNorthM, f.arpUpM);
-  const e = noArp ? {} : num('Antenna offset east', f.arpEastM, RANGES.arpOffsetM);
-  const n = noArp ? {} : num('Antenna offset north', f.arpNorthM, RANGES.arpOffsetM);
-  const u = noArp ? {} : num('Antenna offset up', f.arpUpM, RANGES.arpOffsetM);
+  const noApex = allBlank(f.apexLatDeg, f.apexLonDeg, f.apexHeightEllM);
+  const aLat = groupNum(!noApex, 'Apex latitude', f.apexLatDeg, RANGES.latDeg);
+  const aLon = groupNum(!noApex, 'Apex longitude', f.apexLonDeg, RANGES.lonDeg);
+  const aH = groupNum(!noApex, 'Apex ellipsoidal height', f.apexHeightEllM, RANGES.heightEllM);
+  const noArp = allBlank(f.arpEastM, f.arpNorthM, f.arpUpM);
+  const e = groupNum(!noArp, 'Antenna offset east', f.arpEastM, RANGES.arpOffsetM);
+  const n = groupNum(!noArp, 'Antenna offset north', f.arpNorthM, RANGES.arpOffsetM);
+  const u = groupNum(!noArp, 'Antenna offset up', f.arpUpM, RANGES.arpOffsetM);
   const notes = note('Notes', f.notes);
   const errors: ParsedReflector['errors'] = {
     label: label.error,
     edgeM: edge.error,
-    meshOpeningMm: 'error' in mesh ? mesh.error : undefined,
+    meshOpeningMm: mesh.error,
     drainage: drainage.error,
     foundation: foundation.error,
     apexHeightAboveMarkM: aboveMark.error,
-    apexLatDeg: 'error' in aLat ? aLat.error : undefined,
-    apexLonDeg: 'error' in aLon ? aLon.error : undefined,
-    apexHeightEllM: 'error' in aH ? aH.error : undefined,
-    arpEastM: 'error' in e ? e.error : undefined,
-    arpNorthM: 'error' in n ? n.error : undefined,
-    arpUpM: 'error' in u ? u.error : undefined,
+    apexLatDeg: aLat.error,
+    apexLonDeg: aLon.error,
+    apexHeightEllM: aH.error,
+    arpEastM: e.error,
+    arpNorthM: n.error,
+    arpUpM: u.error,
     notes: notes.error,
   };
-  if (Object.values(errors).some((x) => x !== undefined)) return { fields: null, errors };
-  const v = (p: { value?: number }) => p.value as number;
+  if (hasErrors(errors)) return { fields: null, errors };
   return {
     errors: {},
     fields: {
@@ -90,13 +88,13 @@ export function parseReflectorForm(f: ReflectorForm, siteId: string): ParsedRefl
       edgeM: edge.value!,
       construction: {
         panels: f.panels,
-        ...('value' in mesh && mesh.value !== undefined ? { meshOpeningMm: mesh.value } : {}),
+        ...(mesh.value !== undefined ? { meshOpeningMm: mesh.value } : {}),
         drainage: drainage.value!,
         foundation: foundation.value!,
       },
-      apex: noApex ? null : { latDeg: v(aLat), lonDeg: wrapLonDeg(v(aLon)), heightEllM: v(aH) },
+      apex: noApex ? null : { latDeg: aLat.value!, lonDeg: wrapLonDeg(aLon.value!), heightEllM: aH.value! },
       apexHeightAboveMarkM: aboveMark.value!,
-      gnssArpOffsetM: noArp ? null : { eastM: v(e), northM: v(n), upM: v(u) },
+      gnssArpOffsetM: noArp ? null : { eastM: e.value!, northM: n.value!, upM: u.value! },
       notes: notes.value!,
       demo: false,
     },

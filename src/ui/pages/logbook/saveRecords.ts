@@ -29,6 +29,9 @@ export interface PendingPhoto {
   blob: Blob;
 }
 
+/** The photos chosen on a form (by role; a cleared role is left out), to add once the record is stored. */
+export const pendingPhotos = (files: Partial<Record<string, Blob>>): PendingPhoto[] => Object.entries(files).flatMap(([role, blob]) => (blob ? [{ role, blob }] : []));
+
 export interface PhotoFailure {
   role: string;
   message: string;

@@ -5,7 +5,7 @@
 import type { PositionSource, SiteFields, SiteRecord } from '../../../data/index.ts';
 import type { Fix } from '../../../sensors/index.ts';
 import type { SiteInput } from '../../state/workflow.ts';
-import { line, note, num, optNum, RANGES, wrapLonDeg, type FieldErrors } from './parse.ts';
+import { hasErrors, line, note, num, optNum, RANGES, wrapLonDeg, type FieldErrors } from './parse.ts';
 
 export interface SiteForm {
   code: string;
@@ -64,7 +64,7 @@ export function parseSiteForm(f: SiteForm, demo = false): ParsedSite {
     frameEpoch: epoch.error,
     notes: notes.error,
   };
-  if (Object.values(errors).some((e) => e !== undefined)) return { fields: null, errors };
+  if (hasErrors(errors)) return { fields: null, errors };
   return {
     errors: {},
     fields: {
