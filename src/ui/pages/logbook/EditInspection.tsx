@@ -3,7 +3,7 @@ import { inspectionRepo, useGlintmarkDb, useInspection, type InspectionFields, t
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
-import { NotStored } from './banners.tsx';
+import { WhenStored } from './banners.tsx';
 import { shownErrors } from './inputs.tsx';
 import { InspectionFieldset } from './InspectionFieldset.tsx';
 import { inspectionFormFromRecord, isInspectionForm, parseInspectionForm, type InspectionForm } from './inspectionForm.ts';
@@ -45,12 +45,9 @@ function EditForm(props: { rec: InspectionRecord }) {
 
 export function EditInspection(props: { id: string }) {
   const rec = useInspection(props.id);
-  if (rec === undefined) return <p>Loading…</p>;
-  if (rec === null)
-    return (
-      <NotStored back="Logbook" testId="inspection-missing">
-        This inspection is not stored on this device.
-      </NotStored>
-    );
-  return <EditForm rec={rec} />;
+  return (
+    <WhenStored rec={rec} back="Logbook" testId="inspection-missing" missing="This inspection is not stored on this device.">
+      {(r) => <EditForm rec={r} />}
+    </WhenStored>
+  );
 }

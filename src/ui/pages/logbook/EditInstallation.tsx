@@ -5,7 +5,7 @@
 import { installationRepo, useGlintmarkDb, useInstallation, type InstallationRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
-import { NotStored } from './banners.tsx';
+import { WhenStored } from './banners.tsx';
 import { shownErrors } from './inputs.tsx';
 import { InstallationFieldset } from './InstallationFieldset.tsx';
 import { installationFormFromRecord, isInstallationForm, parseInstallationForm, type InstallationCoreFields, type InstallationForm } from './installationForm.ts';
@@ -51,12 +51,9 @@ function EditForm(props: { rec: InstallationRecord }) {
 
 export function EditInstallation(props: { id: string }) {
   const rec = useInstallation(props.id);
-  if (rec === undefined) return <p>Loading…</p>;
-  if (rec === null)
-    return (
-      <NotStored back="Logbook" testId="installation-missing">
-        This installation is not stored on this device.
-      </NotStored>
-    );
-  return <EditForm rec={rec} />;
+  return (
+    <WhenStored rec={rec} back="Logbook" testId="installation-missing" missing="This installation is not stored on this device.">
+      {(r) => <EditForm rec={r} />}
+    </WhenStored>
+  );
 }

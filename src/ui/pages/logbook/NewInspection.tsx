@@ -5,8 +5,8 @@ import { reflectorRepo, useGlintmarkDb, useSite, type InspectionRecord, type Ref
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
-import { DraftRestoredBanner, NotStored, PhotoErrors } from './banners.tsx';
-import { BackLink, ErrorNote, SavedNote } from './bits.tsx';
+import { DraftRestoredBanner, PhotoErrors, WhenStored } from './banners.tsx';
+import { BackLink, ErrorNote, SaveButton, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { InspectionFieldset } from './InspectionFieldset.tsx';
@@ -100,9 +100,9 @@ function Form(props: { reflector: ReflectorRecord }) {
       <InspectionFieldset form={form} set={update} errors={errors} capture={wf.capture} />
       <PendingPhotos files={photos} onChange={(role, f) => setPhotos((p) => ({ ...p, [role]: f }))} errors={{}} />
       <div className="gm-lb-actions">
-        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-inspection">
-          {busy ? 'Saving…' : 'Save inspection'}
-        </button>
+        <SaveButton busy={busy} onSave={() => void save()} testId="save-inspection">
+          Save inspection
+        </SaveButton>
       </div>
       <ErrorNote message={error} />
     </>
@@ -122,12 +122,9 @@ export function NewInspection(props: { reflectorId: string }) {
       live = false;
     };
   }, [db, props.reflectorId]);
-  if (reflector === undefined) return <p>Loading…</p>;
-  if (reflector === null)
-    return (
-      <NotStored back="Logbook" testId="reflector-missing">
-        This reflector is not (or no longer) stored on this device.
-      </NotStored>
-    );
-  return <Form reflector={reflector} />;
+  return (
+    <WhenStored rec={reflector} back="Logbook" testId="reflector-missing" missing="This reflector is not (or no longer) stored on this device.">
+      {(r) => <Form reflector={r} />}
+    </WhenStored>
+  );
 }

@@ -12,7 +12,7 @@ import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
 import { DraftRestoredBanner, PhotoErrors } from './banners.tsx';
-import { ErrorNote, SavedNote } from './bits.tsx';
+import { ErrorNote, SaveButton, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { plannedGeometryFields } from './geometryPlan.ts';
 import { shownErrors } from './inputs.tsx';
@@ -187,9 +187,9 @@ export function NewInstallation(props: { onSaved: () => void }) {
       ) : null}
       <PendingPhotos files={photos} onChange={(role, f) => setPhotos((p) => ({ ...p, [role]: f }))} errors={{}} />
       <div className="gm-lb-actions">
-        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-installation">
-          {busy ? 'Saving…' : 'Save installation'}
-        </button>
+        <SaveButton busy={busy} onSave={() => void save()} testId="save-installation">
+          Save installation
+        </SaveButton>
       </div>
       <ErrorNote message={error} />
     </>

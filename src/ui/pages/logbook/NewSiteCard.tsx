@@ -8,7 +8,7 @@ import { siteRepo, useGlintmarkDb, withReopen, type SiteRecord } from '../../../
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
-import { ErrorNote, SavedNote } from './bits.tsx';
+import { ErrorNote, SaveButton, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { EMPTY_SITE_FORM, parseSiteForm, siteFormFromWorkflow, type SiteForm } from './siteForm.ts';
@@ -65,9 +65,9 @@ export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecor
       <h2 id="new-site-h">{props.title ?? 'New site'}</h2>
       <SiteFormFields form={form} setForm={edit} errors={errors} />
       <div className="gm-lb-actions">
-        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-site">
-          {busy ? 'Saving…' : 'Save site'}
-        </button>
+        <SaveButton busy={busy} onSave={() => void save()} testId="save-site">
+          Save site
+        </SaveButton>
       </div>
       <ErrorNote message={error} />
       {saved ? (

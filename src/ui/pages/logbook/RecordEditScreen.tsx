@@ -6,7 +6,7 @@
 import type { ReactNode } from 'react';
 import { useReflectors, useSite } from '../../../data/index.ts';
 import { DeletedBanner, DraftRestoredBanner, StaleEditChoices } from './banners.tsx';
-import { BackLink, DemoBadge, ErrorNote, SavedNote } from './bits.tsx';
+import { BackLink, DemoBadge, ErrorNote, SaveButton, SavedNote } from './bits.tsx';
 import { StoredPhotos } from './Photos.tsx';
 import { RecordHistory } from './Timeline.tsx';
 import type { EditSession } from './useEditSession.ts';
@@ -58,9 +58,9 @@ export function RecordEditScreen<F>(props: {
         <>
           {props.fields}
           <div className="gm-lb-actions">
-            <button type="button" className="gm-btn gm-primary" onClick={() => void edit.save()} disabled={edit.busy} data-testid={`save-${noun}`}>
-              {edit.busy ? 'Saving…' : 'Save changes'}
-            </button>
+            <SaveButton busy={edit.busy} onSave={() => void edit.save()} testId={`save-${noun}`}>
+              Save changes
+            </SaveButton>
             <button type="button" className="gm-btn" onClick={() => void toggleDeleted()} data-testid={`delete-${noun}`}>
               Delete {noun}
             </button>

@@ -5,7 +5,7 @@ import { Segmented } from '../../components/fields.tsx';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { ApplyToCurrentButton } from './banners.tsx';
-import { ErrorNote, SavedNote } from './bits.tsx';
+import { ErrorNote, SaveButton, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { formFields, shownErrors } from './inputs.tsx';
 import { parseReflectorForm, reflectorFormFromRecord, type ReflectorForm } from './reflectorForm.ts';
@@ -101,9 +101,9 @@ export function ReflectorEditor(props: {
       </fieldset>
       {f.text('notes', 'Notes', 'refl-notes', { multiline: true })}
       <div className="gm-lb-actions">
-        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-reflector">
-          {busy ? 'Saving…' : 'Save reflector'}
-        </button>
+        <SaveButton busy={busy} onSave={() => void save()} testId="save-reflector">
+          Save reflector
+        </SaveButton>
         <button type="button" className="gm-btn" onClick={props.onCancel} data-testid="cancel-reflector">
           Cancel
         </button>

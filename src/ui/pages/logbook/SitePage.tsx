@@ -8,8 +8,8 @@ import { siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, t
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
-import { ApplyToCurrentButton, DeletedBanner, NotStored } from './banners.tsx';
-import { BackLink, DemoBadge, ErrorNote, SavedNote } from './bits.tsx';
+import { ApplyToCurrentButton, DeletedBanner, WhenStored } from './banners.tsx';
+import { BackLink, DemoBadge, ErrorNote, SaveButton, SavedNote } from './bits.tsx';
 import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { LogbookShell } from './LogbookShell.tsx';
@@ -54,9 +54,9 @@ function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void 
     <section className="gm-card" aria-label="Edit site" data-testid="site-edit-form">
       <SiteFormFields form={form} setForm={setForm} errors={shownErrors(parsed.errors, form, true)} />
       <div className="gm-lb-actions">
-        <button type="button" className="gm-btn gm-primary" onClick={() => void save()} disabled={busy} data-testid="save-site">
-          {busy ? 'Saving…' : 'Save changes'}
-        </button>
+        <SaveButton busy={busy} onSave={() => void save()} testId="save-site">
+          Save changes
+        </SaveButton>
         <button type="button" className="gm-btn" onClick={() => props.onDone(false)}>
           Cancel
         </button>
@@ -172,14 +172,11 @@ function SiteBody(props: { detail: SiteDetail }) {
 
 function SiteScreen(props: { siteId: string }) {
   const detail = useSiteDetail(props.siteId);
-  if (detail === undefined) return <p>Loading…</p>;
-  if (detail === null)
-    return (
-      <NotStored back="All sites" testId="site-missing">
-        This site is not stored on this device.
-      </NotStored>
-    );
-  return <SiteBody detail={detail} />;
+  return (
+    <WhenStored rec={detail} back="All sites" testId="site-missing" missing="This site is not stored on this device.">
+      {(d) => <SiteBody detail={d} />}
+    </WhenStored>
+  );
 }
 
 export function SitePage() {

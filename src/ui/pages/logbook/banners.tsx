@@ -1,4 +1,4 @@
-/** Status banners and choices shared by the Logbook screens: deleted (Undo), draft restored, stale edit, photo errors. */
+/** Banners and choices shared by the Logbook screens: deleted (Undo), draft restored, stale edit, photo errors, not stored. */
 import type { ReactNode } from 'react';
 import { BackLink } from './bits.tsx';
 import type { PhotoFailure } from './saveRecords.ts';
@@ -65,14 +65,20 @@ export function PhotoErrors(props: { errors: readonly PhotoFailure[] }) {
   );
 }
 
-/** A screen whose record is not on this device: the way back and why. */
-export function NotStored(props: { back: string; testId: string; children: string }) {
-  return (
-    <>
-      <BackLink to="/logbook">{props.back}</BackLink>
-      <p className="gm-warn" data-testid={props.testId}>
-        {props.children}
-      </p>
-    </>
-  );
+/**
+ * The screen of one stored record: "Loading…" while it is read (`rec` undefined), the way back and why (`missing`)
+ * when it is not on this device (`rec` null), else `children(rec)`.
+ */
+export function WhenStored<R>(props: { rec: R | null | undefined; back: string; testId: string; missing: string; children: (rec: R) => ReactNode }) {
+  if (props.rec === undefined) return <p>Loading…</p>;
+  if (props.rec === null)
+    return (
+      <>
+        <BackLink to="/logbook">{props.back}</BackLink>
+        <p className="gm-warn" data-testid={props.testId}>
+          {props.missing}
+        </p>
+      </>
+    );
+  return <>{props.children(props.rec)}</>;
 }

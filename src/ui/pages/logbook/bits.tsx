@@ -1,4 +1,4 @@
-/** Small pieces shared by the Logbook screens: the "saved" note, the demo badge, an in-place error, a back link. */
+/** Small pieces shared by the Logbook screens: the "saved" note, the demo badge, an in-place error, a back link, Save. */
 import { Link } from 'react-router-dom';
 
 /** Shown only after a write's promise resolved: the record is on this phone. */
@@ -31,5 +31,14 @@ export function BackLink(props: { to: string; children: string; testId?: string 
     <Link className="gm-btn gm-lb-linkbtn" to={props.to} data-testid={props.testId ?? 'back'}>
       ← {props.children}
     </Link>
+  );
+}
+
+/** The form's main Save button: "Saving…" and disabled while the write runs. */
+export function SaveButton(props: { busy: boolean; onSave: () => void; testId: string; children: string }) {
+  return (
+    <button type="button" className="gm-btn gm-primary" onClick={props.onSave} disabled={props.busy} data-testid={props.testId}>
+      {props.busy ? 'Saving…' : props.children}
+    </button>
   );
 }
