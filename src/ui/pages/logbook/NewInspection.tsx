@@ -7,13 +7,13 @@ import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
 import { DraftRestoredBanner, PhotoErrors, WhenStored } from './banners.tsx';
 import { BackLink, ErrorNote, SaveButton, SavedNote } from './bits.tsx';
-import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { InspectionFieldset } from './InspectionFieldset.tsx';
 import { checklistSummary, isInspectionForm, newInspectionForm, parseInspectionForm, type InspectionForm } from './inspectionForm.ts';
 import { PendingPhotos } from './Photos.tsx';
 import { createInspection, pendingPhotos, type SaveOutcome } from './saveRecords.ts';
 import { useFormDraft } from './useFormDraft.ts';
+import { useSaveState } from './useSaveState.ts';
 import { CHECKLIST_LABELS, fmtUtc, writtenBy } from './words.ts';
 
 function Form(props: { reflector: ReflectorRecord }) {
@@ -24,8 +24,7 @@ function Form(props: { reflector: ReflectorRecord }) {
   const site = useSite(r.siteId);
   const [form, setForm] = useState<InspectionForm>(() => newInspectionForm({ siteId: r.siteId, reflectorId: r.id, crewName: st.crewName, nowMs: Date.now() }));
   const [tried, setTried] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { busy, error, setError, run } = useSaveState();
   const [photos, setPhotos] = useState<Partial<Record<string, File>>>({});
   const [saved, setSaved] = useState<SaveOutcome<InspectionRecord> | null>(null);
   const draft = useFormDraft(`inspection-form:${r.id}`, isInspectionForm, (v) => setForm(v));
@@ -49,17 +48,13 @@ function Form(props: { reflector: ReflectorRecord }) {
       setError('Nothing saved yet: check the marked fields.');
       return;
     }
-    setBusy(true);
-    try {
-      const out = await createInspection(db, parsed.fields, pendingPhotos(photos), writtenBy(st.crewName, parsed.fields.crew));
+    const fields = parsed.fields;
+    await run(async () => {
+      const out = await createInspection(db, fields, pendingPhotos(photos), writtenBy(st.crewName, fields.crew));
       await draft.clear();
       setPhotos({});
       setSaved(out);
-    } catch (e) {
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
+    });
   };
 
   const head = (

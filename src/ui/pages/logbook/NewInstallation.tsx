@@ -13,7 +13,6 @@ import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
 import { DraftRestoredBanner, PhotoErrors } from './banners.tsx';
 import { ErrorNote, SaveButton, SavedNote } from './bits.tsx';
-import { saveErrorMessage } from './errorWords.ts';
 import { plannedGeometryFields } from './geometryPlan.ts';
 import { shownErrors } from './inputs.tsx';
 import { InstallationFieldset } from './InstallationFieldset.tsx';
@@ -23,6 +22,7 @@ import { createInstallation, pendingPhotos, type SaveOutcome } from './saveRecor
 import { SiteReflectorPicker } from './SiteReflectorPicker.tsx';
 import { findWorkflowSite } from './siteForm.ts';
 import { useFormDraft } from './useFormDraft.ts';
+import { useSaveState } from './useSaveState.ts';
 import { fmtUtc, writtenBy } from './words.ts';
 
 export const INSTALLATION_DRAFT_KEY = 'installation-form';
@@ -71,8 +71,7 @@ export function NewInstallation(props: { onSaved: () => void }) {
   const [form, setForm] = useState<InstallationForm>(() => installationFormFromWorkflow(wf, { crewName: st.crewName, nowMs: Date.now() }));
   const [dirty, setDirty] = useState(false);
   const [tried, setTried] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { busy, error, setError, run } = useSaveState();
   const [photos, setPhotos] = useState<Partial<Record<string, File>>>({});
   const [saved, setSaved] = useState<{ out: SaveOutcome<InstallationRecord>; geometryNotes: string[] } | null>(null);
   const draft = useFormDraft(INSTALLATION_DRAFT_KEY, isInstallationForm, (v) => {
@@ -125,18 +124,14 @@ export function NewInstallation(props: { onSaved: () => void }) {
       setError('Nothing saved yet: check the marked fields.');
       return;
     }
-    setBusy(true);
-    try {
-      const out = await createInstallation(db, parsed.fields, geo.fields, pendingPhotos(photos), writtenBy(st.crewName, parsed.fields.crew));
+    const fields = parsed.fields;
+    await run(async () => {
+      const out = await createInstallation(db, fields, geo.fields, pendingPhotos(photos), writtenBy(st.crewName, fields.crew));
       await draft.clear();
       setPhotos({});
       setSaved({ out, geometryNotes: geo.errors });
       props.onSaved();
-    } catch (e) {
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
+    });
   };
 
   if (saved) return <SavedPanel out={saved.out} geometryNotes={saved.geometryNotes} />;

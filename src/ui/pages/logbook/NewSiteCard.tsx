@@ -9,10 +9,10 @@ import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
 import { ErrorNote, SaveButton, SavedNote } from './bits.tsx';
-import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { EMPTY_SITE_FORM, parseSiteForm, siteFormFromWorkflow, type SiteForm } from './siteForm.ts';
 import { SiteFormFields } from './SiteFormFields.tsx';
+import { useSaveState } from './useSaveState.ts';
 import { writtenBy } from './words.ts';
 
 export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecord) => void; title?: string }) {
@@ -24,8 +24,7 @@ export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecor
     return s && s.source !== 'logbook' ? siteFormFromWorkflow(s) : EMPTY_SITE_FORM;
   });
   const [tried, setTried] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { busy, error, setError, run } = useSaveState();
   const [codeTaken, setCodeTaken] = useState<string | null>(null);
   const [saved, setSaved] = useState<SiteRecord | null>(null);
   const parsed = parseSiteForm(form);
@@ -43,21 +42,20 @@ export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecor
       setError('Check the marked fields.');
       return;
     }
-    setBusy(true);
     setError(null);
     const fields = parsed.fields;
-    try {
-      const rec = await withReopen(db, () => siteRepo.create(db, fields, { by: writtenBy(st.crewName) }));
-      setSaved(rec);
-      setForm(EMPTY_SITE_FORM);
-      setTried(false);
-      props.onSaved?.(rec);
-    } catch (e) {
-      if (e instanceof Error && e.name === 'DuplicateCodeError') setCodeTaken(fields.code);
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
+    await run(
+      async () => {
+        const rec = await withReopen(db, () => siteRepo.create(db, fields, { by: writtenBy(st.crewName) }));
+        setSaved(rec);
+        setForm(EMPTY_SITE_FORM);
+        setTried(false);
+        props.onSaved?.(rec);
+      },
+      (e) => {
+        if (e instanceof Error && e.name === 'DuplicateCodeError') setCodeTaken(fields.code);
+      },
+    );
   };
 
   return (

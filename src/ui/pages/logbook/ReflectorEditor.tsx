@@ -6,10 +6,10 @@ import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { ApplyToCurrentButton } from './banners.tsx';
 import { ErrorNote, SaveButton, SavedNote } from './bits.tsx';
-import { saveErrorMessage } from './errorWords.ts';
 import { formFields, shownErrors } from './inputs.tsx';
 import { parseReflectorForm, reflectorFormFromRecord, type ReflectorForm } from './reflectorForm.ts';
 import { changedFields, withoutMeta } from './siteForm.ts';
+import { useSaveState } from './useSaveState.ts';
 import { writtenBy } from './words.ts';
 
 export function ReflectorEditor(props: {
@@ -23,10 +23,8 @@ export function ReflectorEditor(props: {
   const st = useStore(settings);
   const [form, setForm] = useState<ReflectorForm>(props.existing ? reflectorFormFromRecord(props.existing) : props.initial);
   const [tried, setTried] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { busy, error, setError, stale, run } = useSaveState();
   const [saved, setSaved] = useState(false);
-  const [stale, setStale] = useState(false);
   // The version the edit started from (see SiteEditor): changed fields only, onto that rev.
   const [base] = useState(() => (props.existing ? { rev: props.existing.rev, fields: withoutMeta(props.existing) } : null));
   const parsed = parseReflectorForm(form, props.siteId);
@@ -43,9 +41,8 @@ export function ReflectorEditor(props: {
       return;
     }
     const fields = parsed.fields;
-    setBusy(true);
     setError(null);
-    try {
+    await run(async () => {
       const by = writtenBy(st.crewName);
       const ex = props.existing;
       const rec =
@@ -56,12 +53,7 @@ export function ReflectorEditor(props: {
           : await withReopen(db, () => reflectorRepo.create(db, fields, { by }));
       setSaved(true);
       props.onSaved(rec);
-    } catch (e) {
-      setStale(e instanceof Error && e.name === 'StaleRecordError');
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
+    });
   };
 
   const f = formFields(form, set, errors);

@@ -10,7 +10,6 @@ import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
 import { ApplyToCurrentButton, DeletedBanner, WhenStored } from './banners.tsx';
 import { BackLink, DemoBadge, ErrorNote, SaveButton, SavedNote } from './bits.tsx';
-import { saveErrorMessage } from './errorWords.ts';
 import { shownErrors } from './inputs.tsx';
 import { LogbookShell } from './LogbookShell.tsx';
 import { changedFields, parseSiteForm, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
@@ -18,6 +17,7 @@ import { SiteFormFields } from './SiteFormFields.tsx';
 import { GeometryTable, InspectionList, InstallationList, ReflectorSection, SiteDetails } from './SiteSections.tsx';
 import { Timeline } from './Timeline.tsx';
 import { loadSiteTimeline, type TimelineEntry } from './timeline.ts';
+import { useSaveState } from './useSaveState.ts';
 import { useToggleDeleted } from './useToggleDeleted.ts';
 import { writtenBy } from './words.ts';
 
@@ -28,9 +28,7 @@ function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void 
   // unless the crew chooses to apply them to the current version after a refusal.
   const [base] = useState(() => ({ rev: props.site.rev, fields: withoutMeta(props.site) }));
   const [form, setForm] = useState<SiteForm>(() => siteFormFromRecord(props.site));
-  const [error, setError] = useState<string | null>(null);
-  const [stale, setStale] = useState(false);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, stale, run } = useSaveState();
   const parsed = parseSiteForm(form, props.site.demo);
   const save = async (onto?: 'current') => {
     if (!parsed.fields) {
@@ -39,16 +37,10 @@ function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void 
     }
     const patch = changedFields(base.fields, parsed.fields);
     const expectedRev = onto === 'current' ? props.site.rev : base.rev;
-    setBusy(true);
-    try {
+    await run(async () => {
       await withReopen(db, () => siteRepo.update(db, props.site.id, patch, { by: writtenBy(st.crewName), expectedRev }));
       props.onDone(true);
-    } catch (e) {
-      setStale(e instanceof Error && e.name === 'StaleRecordError');
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
+    });
   };
   return (
     <section className="gm-card" aria-label="Edit site" data-testid="site-edit-form">

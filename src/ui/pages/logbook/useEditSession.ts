@@ -6,9 +6,9 @@
  */
 import { useState } from 'react';
 import { useGlintmarkDb, withReopen } from '../../../data/index.ts';
-import { saveErrorMessage } from './errorWords.ts';
 import { changedFields } from './siteForm.ts';
 import { useFormDraft, type FormDraft } from './useFormDraft.ts';
+import { useSaveState } from './useSaveState.ts';
 
 interface Session<F> {
   baseRev: number;
@@ -52,9 +52,7 @@ export function useEditSession<F, P extends object, R extends { rev: number }>(o
   const fresh = (r: R): Session<F> => ({ baseRev: r.rev, base: o.toForm(r), form: o.toForm(r) });
   const [session, setSession] = useState<Session<F>>(() => fresh(o.rec));
   const [saved, setSaved] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const [stale, setStale] = useState(false);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, stale, setStale, run } = useSaveState();
   const isSession = (v: unknown): v is Session<F> =>
     typeof v === 'object' && v !== null && typeof (v as Session<F>).baseRev === 'number' && o.isForm((v as Session<F>).base) && o.isForm((v as Session<F>).form);
   const draft = useFormDraft(o.draftKey, isSession, (d) => setSession(d));
@@ -87,19 +85,13 @@ export function useEditSession<F, P extends object, R extends { rev: number }>(o
       return;
     }
     const expectedRev = onto === 'current' ? o.rec.rev : session.baseRev;
-    setBusy(true);
-    try {
+    await run(async () => {
       const next = await withReopen(db, () => o.write(patch, expectedRev));
       await draft.clear();
       setSession(fresh(next));
       setStale(false);
       setSaved('Saved on this device');
-    } catch (e) {
-      setStale(e instanceof Error && e.name === 'StaleRecordError');
-      setError(saveErrorMessage(e));
-    } finally {
-      setBusy(false);
-    }
+    });
   };
   return {
     form: session.form,
