@@ -4,4 +4,6 @@ import { registerOfflineCache } from './ui/offline.ts';
 import { startApp } from './ui/startup.ts';
 
 registerOfflineCache();
-void startApp().finally(() => createRoot(document.getElementById('root')!).render(<App />));
+// The Plan screen is shown at once; the logbook opens and the saved task is put back in the background.
+createRoot(document.getElementById('root')!).render(<App />);
+void startApp();

@@ -5,12 +5,12 @@ import { persistWorkflow, restoreWorkflow } from './state/persistWorkflow.ts';
 
 export async function startApp(): Promise<void> {
   const db = getAppDb();
+  persistWorkflow(db);
   try {
     await restoreWorkflow(db);
   } catch {
     /* an unreadable draft is dropped; the records themselves are untouched */
   }
-  persistWorkflow(db);
   try {
     if ((await getMeta(db, 'persistence')) === undefined) await requestPersistentStorage({ db });
   } catch {

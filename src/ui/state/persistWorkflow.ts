@@ -13,9 +13,14 @@ function isWorkflow(v: unknown): v is Workflow {
   return !!w && Array.isArray(w.geometries) && typeof w.shape === 'string' && typeof w.edgeM === 'string' && typeof w.band === 'string';
 }
 
+/**
+ * Put back the saved task, unless the crew has already changed something since the app started (the screen is
+ * shown before the database has opened, so a fast tap must not be overwritten by an older draft).
+ */
 export async function restoreWorkflow(db: GlintmarkDb): Promise<void> {
+  const before = workflow.get();
   const d = await loadDraft<unknown>(db, KEY);
-  if (d && isWorkflow(d.value)) workflow.set({ ...DEFAULT_WORKFLOW, ...d.value });
+  if (d && isWorkflow(d.value) && workflow.get() === before) workflow.set({ ...DEFAULT_WORKFLOW, ...d.value });
 }
 
 /**
