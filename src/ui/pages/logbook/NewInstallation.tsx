@@ -19,6 +19,7 @@ import { InstallationFieldset } from './InstallationFieldset.tsx';
 import { applyCapture, captureLossUnstorable, installationFormFromWorkflow, isInstallationForm, parseInstallationForm, type InstallationForm } from './installationForm.ts';
 import { PendingPhotos } from './Photos.tsx';
 import { createInstallation, pendingPhotos, type SaveOutcome } from './saveRecords.ts';
+import { SafetyNotice } from '../../components/SafetyNotice.tsx';
 import { SiteReflectorPicker } from './SiteReflectorPicker.tsx';
 import { findWorkflowSite } from './siteForm.ts';
 import { useFormDraft } from './useFormDraft.ts';
@@ -187,6 +188,7 @@ export function NewInstallation(props: { onSaved: () => void }) {
         </SaveButton>
       </div>
       <ErrorNote message={error} />
+      <SafetyNotice hazards={['lifting', 'digging', 'wind', 'traffic', 'access']} title="Before you leave the reflector" />
     </>
   );
 }

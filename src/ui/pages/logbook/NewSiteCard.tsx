@@ -14,6 +14,7 @@ import { EMPTY_SITE_FORM, parseSiteForm, siteFormFromWorkflow, type SiteForm } f
 import { SiteFormFields } from './SiteFormFields.tsx';
 import { useSaveState } from './useSaveState.ts';
 import { writtenBy } from './words.ts';
+import { SafetyNotice } from '../../components/SafetyNotice.tsx';
 
 export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecord) => void; title?: string }) {
   const db = useGlintmarkDb();
@@ -62,6 +63,7 @@ export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecor
     <section className="gm-card" aria-labelledby="new-site-h" data-testid="new-site-form">
       <h2 id="new-site-h">{props.title ?? 'New site'}</h2>
       <SiteFormFields form={form} setForm={edit} errors={errors} />
+      <SafetyNotice hazards={['access', 'digging', 'traffic']} title="Setting up a new site" />
       <div className="gm-lb-actions">
         <SaveButton busy={busy} onSave={() => void save()} testId="save-site">
           Save site
