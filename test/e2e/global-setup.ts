@@ -25,7 +25,8 @@ async function waitForServer(url: string, timeoutMs: number): Promise<void> {
 export async function setup(): Promise<void> {
   mkdirSync('test/e2e/artifacts', { recursive: true });
   if (!process.env.GLINTMARK_E2E_SKIP_BUILD || !existsSync('dist/index.html')) {
-    const b = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { stdio: 'inherit' });
+    // Vitest sets NODE_ENV=test, which would make Vite build a development bundle (no service worker, dev React).
+    const b = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { stdio: 'inherit', env: { ...process.env, NODE_ENV: 'production' } });
     if (b.status !== 0) throw new Error('vite build failed');
   }
   server = spawn('npx', ['vite', 'preview', '--host', '127.0.0.1', '--port', String(E2E_PORT), '--strictPort'], { stdio: 'ignore', detached: true });
