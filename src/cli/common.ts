@@ -30,7 +30,7 @@ export function readLook(args: Args): LookSide {
 }
 
 /** "INC,HEADING,LOOK" (LOOK optional, default right) → a validated pass geometry. */
-export function parseGeometrySpec(spec: string): PassGeometry {
+function parseGeometrySpec(spec: string): PassGeometry {
   const parts = spec.split(',').map((p) => p.trim());
   if (parts.length < 2 || parts.length > 3) {
     throw new UsageError(`--geometry must be INCIDENCE,HEADING[,LOOK], e.g. 37.5,192.3,right; got "${spec}"`);

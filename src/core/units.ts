@@ -20,8 +20,8 @@ export const EARTH_ROTATION_RAD_PER_S = 7.292115e-5;
 /** Trihedral boresight elevation above the base plate: atan(1/√2) = 35.2643896828°. */
 export const TRIHEDRAL_BORESIGHT_ELEVATION_DEG = (Math.atan(Math.SQRT1_2) * 180) / Math.PI;
 
-export const DEG_PER_RAD = 180 / Math.PI;
-export const RAD_PER_DEG = Math.PI / 180;
+const DEG_PER_RAD = 180 / Math.PI;
+const RAD_PER_DEG = Math.PI / 180;
 
 export const toRad = (deg: number): number => deg * RAD_PER_DEG;
 export const toDeg = (rad: number): number => rad * DEG_PER_RAD;

@@ -1,9 +1,8 @@
-import { resolutionCellAreaM2 } from '../../core/radar/clutter.ts';
-import { edgeForScrM } from '../../core/radar/clutter.ts';
+import { edgeForScrM, resolutionCellAreaM2 } from '../../core/radar/clutter.ts';
 import { peakRcsM2 } from '../../core/reflector/trihedral.ts';
 import { toDb } from '../../core/units.ts';
 import { requireFinite, requirePositive } from '../../core/validate.ts';
-import { UsageError } from '../args.ts';
+import { UsageError, type Args } from '../args.ts';
 import type { Command } from '../command.ts';
 import { readShape, readWavelengthM } from '../common.ts';
 import { fmt, keyValueTable } from '../output.ts';
@@ -39,7 +38,7 @@ export const command: Command = {
 };
 
 /** Either --cell-area, or all of --range-resolution (slant), --azimuth-resolution, --incidence. */
-export function readCellAreaM2(args: import('../args.ts').Args): number {
+function readCellAreaM2(args: Args): number {
   const area = args.optNumber('cell-area');
   const parts = ['range-resolution', 'azimuth-resolution', 'incidence'];
   const given = parts.filter((p) => args.has(p));

@@ -76,7 +76,7 @@ function sgp4Error(code: number, timeMs?: number): PropagationError {
 }
 
 /** Julian date (UTC) for ms since 1970. */
-export const julianDateFromMs = (timeMs: number): number => timeMs / MS_PER_DAY + JD_UNIX_EPOCH;
+const julianDateFromMs = (timeMs: number): number => timeMs / MS_PER_DAY + JD_UNIX_EPOCH;
 
 /** Initialise SGP4 from the two lines of a (checked) element set. */
 export function orbitModelFromTle(line1: string, line2: string): Result<OrbitModel, PropagationError> {

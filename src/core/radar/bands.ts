@@ -34,12 +34,6 @@ export function wavelengthFromFrequencyM(freqHz: number): number {
   return SPEED_OF_LIGHT_M_PER_S / freqHz;
 }
 
-/** Frequency in Hz for a wavelength in metres: f = c / λ. */
-export function frequencyFromWavelengthHz(wavelengthM: number): number {
-  requirePositive('wavelength', wavelengthM, 'm');
-  return SPEED_OF_LIGHT_M_PER_S / wavelengthM;
-}
-
 /** The preset for a band letter (case-insensitive: "c", "C", "ku", "KU"). */
 export function bandPreset(name: string): BandPreset {
   const canonical = BAND_NAMES.find((n) => n.toLowerCase() === String(name).toLowerCase()) ?? name;
