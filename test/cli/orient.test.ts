@@ -9,7 +9,9 @@ describe('glintmark orient', () => {
     const r = await runCli(['orient', '--alpha', '30', '--beta', '10', '--gamma', '0', '--json']);
     expect(r.code).toBe(0);
     const j = r.json() as Record<string, unknown>;
-    expect(Object.keys(j).sort()).toEqual(['azimuthReference', 'reflectorAzimuthDeg', 'rollDeg', 'tiltDeg']);
+    expect(Object.keys(j).sort()).toEqual(['azimuthReference', 'reflectorAzimuthDeg', 'reflectorAzimuthMagDeg', 'rollDeg', 'tiltDeg']);
+    expect(j.reflectorAzimuthMagDeg as number).toBeCloseTo(330, 9);
+    expect(r.stderr).toMatch(/reflectorAzimuthDeg is MAGNETIC/);
     expect(j.reflectorAzimuthDeg as number).toBeCloseTo(330, 9); // alpha is anticlockwise: azimuth = 360 − alpha
     expect(j.tiltDeg as number).toBeCloseTo(10, 9);
     expect(j.rollDeg as number).toBeCloseTo(0, 9);

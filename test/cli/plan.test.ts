@@ -35,6 +35,16 @@ describe('glintmark plan', () => {
     expect(j[0].reflectorAzimuthDeg).toBeCloseTo(j[1].reflectorAzimuthDeg, 9);
     expect(Math.max(...j.map((x) => x.lossDb))).toBeLessThan(1);
   });
+  it('--one-reflector warns when no single aim serves the geometries (ascending + descending)', async () => {
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '37,192.3,right', '--geometry', '41,347.9,right', ...BASE, '--one-reflector', '--json']);
+    expect(r.code).toBe(0);
+    expect(r.stderr).toMatch(/warning: .*one reflector per pass direction/);
+  });
+  it('names an --out file it cannot write, with status 2', async () => {
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190', ...BASE, '--out', join(dir, 'no-such-dir', 'plan.csv')]);
+    expect(r.code).toBe(2);
+    expect(r.stderr).toMatch(/cannot write --out .*plan\.csv: ENOENT/);
+  });
   it('writes --out only when every row is good', async () => {
     const out = join(dir, 'out.csv');
     expect((await runCli(['plan', '--sites', GOOD, '--geometry', '40,190', ...BASE, '--out', out])).code).toBe(0);

@@ -32,7 +32,10 @@ export const command: Command = {
     const o = r.value;
     const azimuthReference: 'magnetic' | 'true' = declinationDeg === undefined ? 'magnetic' : 'true';
     const reflectorAzimuthDeg = declinationDeg === undefined ? o.azimuthDeg : magneticToTrueAzimuthDeg(o.azimuthDeg, declinationDeg);
-    const result = { reflectorAzimuthDeg, tiltDeg: o.tiltDeg, rollDeg: o.rollDeg, azimuthReference };
+    // The contract's reflectorAzimuthDeg is magnetic until --declination is given; the magnetic value is always
+    // also given under a name that says so.
+    const result = { reflectorAzimuthDeg, tiltDeg: o.tiltDeg, rollDeg: o.rollDeg, azimuthReference, reflectorAzimuthMagDeg: o.azimuthDeg };
+    if (declinationDeg === undefined) out.stderr('note: no --declination given, so reflectorAzimuthDeg is MAGNETIC (glintmark declination gives it)\n');
     if (json) out.stdout(JSON.stringify(result, null, 2) + '\n');
     else
       out.stdout(

@@ -10,6 +10,7 @@ import { UsageError } from '../args.ts';
 import type { Command } from '../command.ts';
 import { jsonNumber, readGeometries, readShape, readWavelengthM } from '../common.ts';
 import { parseSitesCsv } from '../sitesCsv.ts';
+import { reflectorWarnings } from './rcs.ts';
 
 const COLUMNS = [
   'site_code', 'latitude_deg', 'longitude_deg', 'height_m', 'incidence_deg', 'heading_deg', 'look',
@@ -44,7 +45,10 @@ export const command: Command = {
     const sites = parseSitesCsv(sitesPath, text);
     const reflector = { shape, edgeM, wavelengthM };
     const peakDbsm = toDb(peakRcsM2(reflector));
-    const shared = oneReflector ? compromiseOrientation(reflector, geometries).orientation : null;
+    const compromise = oneReflector ? compromiseOrientation(reflector, geometries) : null;
+    const shared = compromise?.orientation ?? null;
+    if (compromise?.separateRecommended) out.stderr(`warning: ${compromise.message}\n`);
+    for (const w of reflectorWarnings(reflector)) out.stderr(`warning: ${w}\n`);
 
     const rows = sites.flatMap((s) =>
       geometries.map((g) => {
@@ -67,7 +71,11 @@ export const command: Command = {
           peakDbsmText(r.peakRcsDbsm), Number.isFinite(r.lossDb) ? r.lossDb.toFixed(3) : '', Number.isFinite(r.predictedRcsDbsm) ? r.predictedRcsDbsm.toFixed(2) : '',
         ])]);
     if (outPath) {
-      writeFileSync(outPath, doc);
+      try {
+        writeFileSync(outPath, doc);
+      } catch (e) {
+        throw new UsageError(`cannot write --out ${outPath}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
+      }
       out.stderr(`wrote ${rows.length} rows to ${outPath}\n`);
     } else out.stdout(doc);
     return 0;

@@ -184,3 +184,12 @@ describe('helpers', () => {
     expect(g.update(true, 100 + MIN_CUE_GAP_MS)).toBe(true);
   });
 });
+
+describe('passes handed over from the orbit', () => {
+  it('issue: Align used heading ∓ 90° and ignored the exact line of sight a computed pass carries', () => {
+    // Found in review, 2026-12-02: Plan showed 0 dB at the aim while Align showed 0.1° off boresight.
+    const [p] = passesFrom([{ incidenceDeg: '30', headingDeg: '190', look: 'right', losAzimuthDeg: 100.3, source: 'orbital-elements' }]);
+    expect(p.geometry.losAzimuthDeg).toBe(100.3);
+    expect(aimForPass(p.geometry).reflectorAzimuthDeg).toBeCloseTo(100.3, 12);
+  });
+});

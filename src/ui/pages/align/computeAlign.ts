@@ -37,7 +37,7 @@ export function passesFrom(geometries: Workflow['geometries']): PassItem[] {
     const inc = parseField('Incidence', g.incidenceDeg, requireIncidenceDeg);
     const hdg = parseField('Heading', g.headingDeg, (n, v) => requireInRange(n, v, { min: -360, max: 360, unit: '°' }));
     if (inc.value !== undefined && hdg.value !== undefined) {
-      out.push({ label: g.label ?? `Pass ${i + 1}`, geometry: { incidenceDeg: inc.value, headingDeg: hdg.value, look: g.look } });
+      out.push({ label: g.label ?? `Pass ${i + 1}`, geometry: { incidenceDeg: inc.value, headingDeg: hdg.value, look: g.look, ...(g.losAzimuthDeg !== undefined ? { losAzimuthDeg: g.losAzimuthDeg } : {}) } });
     }
   });
   return out;
