@@ -41,4 +41,8 @@ export function parseIsoUtcMs(text: string, name = 'time', opts: { requireTime?:
 }
 
 /** ISO 8601 UTC text (`…Z`, milliseconds) for a time in ms since 1970, or null for a missing time. */
-export const isoUtc = (ms: number | null | undefined): string | null => (ms === null || ms === undefined ? null : new Date(ms).toISOString());
+export function isoUtc(ms: number | null | undefined): string | null {
+  if (ms === null || ms === undefined) return null;
+  if (!Number.isFinite(ms)) throw new RangeError(`time must be a finite number of ms since 1970, got ${ms}`);
+  return new Date(ms).toISOString();
+}

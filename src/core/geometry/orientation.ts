@@ -72,6 +72,8 @@ export function reflectorAxesEnu(o: ReflectorOrientation): ReflectorAxesEnu {
  * Returns null when the bisector is within `minCosTilt` of vertical, where azimuth and roll are undefined.
  */
 export function orientationFromAxes(forward: Vec3, up: Vec3, minCosTilt = 1e-6): ReflectorOrientation | null {
+  forward.forEach((x, i) => requireFinite(`forward[${i}]`, x));
+  up.forEach((x, i) => requireFinite(`up[${i}]`, x));
   const horiz = Math.hypot(forward[0], forward[1]);
   if (horiz < minCosTilt) return null;
   const azimuthDeg = normalizeAzimuthDeg(toDeg(Math.atan2(forward[0], forward[1])));

@@ -61,6 +61,8 @@ export function azimuthToSatelliteDeg(headingDeg: number, look: LookSide): numbe
 
 /** Unit line of sight site → satellite in ENU from azimuth and elevation (degrees). */
 export function losFromAzEl(azimuthDeg: number, elevationDeg: number): Vec3 {
+  requireFinite('azimuthDeg', azimuthDeg);
+  requireInRange('elevationDeg', elevationDeg, { min: -90, max: 90, unit: '°' });
   const A = toRad(azimuthDeg);
   const e = toRad(elevationDeg);
   return [Math.sin(A) * Math.cos(e), Math.cos(A) * Math.cos(e), Math.sin(e)];
@@ -68,6 +70,7 @@ export function losFromAzEl(azimuthDeg: number, elevationDeg: number): Vec3 {
 
 /** Azimuth (degrees true, [0, 360)) and elevation (degrees) of an ENU vector. */
 export function azElFromEnu(v: Vec3): { azimuthDeg: number; elevationDeg: number } {
+  v.forEach((x, i) => requireFinite(`v[${i}]`, x));
   return {
     azimuthDeg: normalizeAzimuthDeg(toDeg(Math.atan2(v[0], v[1]))),
     elevationDeg: toDeg(Math.atan2(v[2], Math.hypot(v[0], v[1]))),

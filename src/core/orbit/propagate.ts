@@ -14,6 +14,7 @@
 import { eciToEcf, gstime, sgp4, twoline2satrec, type SatRec } from 'satellite.js';
 import { err, ok, type Result } from '../result.ts';
 import { EARTH_ROTATION_RAD_PER_S } from '../units.ts';
+import { requireFinite } from '../validate.ts';
 import type { Vec3 } from '../vec3.ts';
 
 /** Counts SGP4 evaluations, so callers and the benchmark can compare methods. */
@@ -100,6 +101,7 @@ export function propagateTemeMin(
   minutesFromEpoch: number,
   counter?: PropagationCounter,
 ): Result<{ positionTemeKm: Vec3; velocityTemeKmPerS: Vec3 }, PropagationError> {
+  requireFinite('minutesFromEpoch', minutesFromEpoch);
   if (counter) counter.count += 1;
   const pv = sgp4(model.satrec, minutesFromEpoch);
   if (!pv || model.satrec.error) {

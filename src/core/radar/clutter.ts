@@ -3,7 +3,7 @@
  * SCR-based precision is a lower bound: atmosphere, orbit errors and motion of the monument add to it.
  */
 import { SPEED_OF_LIGHT_M_PER_S, fromDb, toDb, toRad } from '../units.ts';
-import { requireFinite, requireIncidenceDeg, requirePositive } from '../validate.ts';
+import { requireFinite, requireIncidenceDeg, requireInRange, requirePositive } from '../validate.ts';
 import type { TrihedralShapeName } from './shapes.ts';
 import { requireShape } from './shapes.ts';
 
@@ -24,20 +24,25 @@ export function groundRangeResolutionM(slantRangeResolutionM: number, incidenceD
   return slantRangeResolutionM / Math.sin(toRad(incidenceDeg));
 }
 
-/** Ground-projected resolution-cell area A = δr_slant · δaz / sin θᵢ, m² (REFERENCES.md §2; textbook radar). */
+/**
+ * Ground-projected resolution-cell area A = δr_slant · δaz / sin θᵢ, m²: the ground-range resolution
+ * (Curlander & McDonough 1991, eq. 1.2.6) times the azimuth resolution; the cell used for SCR in
+ * Garthwaite 2017, Remote Sensing 9(7):648, §2 (section from memory).
+ */
 export function resolutionCellAreaM2(slantRangeResolutionM: number, azimuthResolutionM: number, incidenceDeg: number): number {
   requirePositive('azimuthResolution', azimuthResolutionM, 'm');
   return groundRangeResolutionM(slantRangeResolutionM, incidenceDeg) * azimuthResolutionM;
 }
 
-/** Clutter RCS of one cell: σ_c = σ⁰ · A, with σ⁰ in dB (m²/m²). */
+/** Clutter RCS of one cell: σ_c = σ⁰ · A, with σ⁰ in dB (m²/m²) (definition of σ⁰ as RCS per unit ground area:
+ * Ulaby, Moore & Fung, "Microwave Remote Sensing", Vol. II, 1982, §7-1 — chapter from memory). */
 export function clutterRcsM2(clutterDb: number, cellAreaM2: number): number {
   requireFinite('clutterDb', clutterDb);
   requirePositive('cellArea', cellAreaM2, 'm²');
   return fromDb(clutterDb) * cellAreaM2;
 }
 
-/** SCR = σ_reflector / (σ⁰ · A), in dB. */
+/** SCR = σ_reflector / (σ⁰ · A), in dB (Garthwaite 2017, Remote Sensing 9(7):648, eq. 3 — equation number from memory). */
 export function scrDb(rcsDbsm: number, clutterDb: number, cellAreaM2: number): number {
   requireFinite('rcsDbsm', rcsDbsm);
   return rcsDbsm - toDb(clutterRcsM2(clutterDb, cellAreaM2));
@@ -56,7 +61,7 @@ export function phaseStdRad(scrDbValue: number): number {
 
 /** Line-of-sight displacement precision σ_d = λ/(4π) · σ_φ, in mm (Garthwaite 2017, eq. 5). */
 export function losPrecisionMm(phaseStd: number, wavelengthM: number): number {
-  requireFinite('phaseStdRad', phaseStd);
+  requireInRange('phaseStdRad', phaseStd, { min: 0, max: Math.PI, unit: 'rad' });
   requirePositive('wavelength', wavelengthM, 'm');
   return ((wavelengthM / (4 * Math.PI)) * phaseStd) * 1000;
 }

@@ -3,6 +3,7 @@ import { describe, expect, it } from 'vitest';
 import {
   aimForPass,
   azElFromEnu,
+  losFromAzEl,
   azimuthToSatelliteDeg,
   incidenceFromLookDeg,
   lookFromIncidenceDeg,
@@ -128,5 +129,13 @@ describe('angle helpers', () => {
     expect(wrapSignedDeg(180)).toBe(180);
     expect(wrapSignedDeg(-180)).toBe(180);
     expect(wrapSignedDeg(350)).toBe(-10);
+  });
+});
+
+describe('bad vectors and angles at the boundary', () => {
+  it('rejects NaN in line-of-sight helpers, naming the parameter', () => {
+    expect(() => losFromAzEl(Number.NaN, 10)).toThrow(/azimuthDeg must be a finite number, got NaN/);
+    expect(() => losFromAzEl(10, 91)).toThrow(/elevationDeg must be in \[-90, 90\]°, got 91/);
+    expect(() => azElFromEnu([Number.NaN, 1, 0])).toThrow(/v\[0\] must be a finite number/);
   });
 });

@@ -1,6 +1,6 @@
 /**
  * Layout of the Passes screen's two drawings, as plain numbers (testable without a DOM):
- *  - the sky plot: a polar plot seen from below looking up, north at the top, azimuth clockwise, elevation
+ *  - the sky plot: a polar plot seen from above (east to the right of north, as GNSS sky plots), north at the top, azimuth clockwise, elevation
  *    90° at the centre and 0° on the rim (radius ∝ zenith angle, an azimuthal equidistant view of the sky);
  *  - the reflector's −3 dB beam outline on that plot, approximated as an ellipse of angles around boresight;
  *  - the timeline: days across, ascending and descending passes on separate rows.
@@ -51,7 +51,7 @@ const T_RIGHT: Vec3 = [1, 0, 0];
 
 /**
  * Approximate −3 dB outline: directions at angle θ(φ) from boresight, φ measured around it from the vertical-edge
- * side toward the right, with θ on an ellipse whose semi-axes are the published cut half-widths
+ * side toward the right, with θ on an ellipse whose semi-axes are the derived cut half-widths
  *   θ(φ) = 1 / √((cos φ / a)² + (sin φ / c)²),  a = above or below half-width by the sign of cos φ, c = azimuth half-width.
  * Exact on the two cuts (φ = 0°, 90°, 180°, 270°); between them it is an interpolation, so label it approximate.
  */
