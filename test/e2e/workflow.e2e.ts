@@ -53,6 +53,8 @@ describe('one workflow from plan to record, offline', () => {
     await page.locator('[data-testid="tab-logbook"]').click();
     await page.locator(`[data-testid="site-row-${SITE.code}"]`).click();
     await expect.poll(() => text(page, 'site-title').catch(() => ''), POLL).toContain(SITE.code);
+    // The site page computes the next pass from the element sets stored on the phone.
+    await expect.poll(() => text(page, 'next-pass'), POLL).toMatch(/GLINT-A (ascending|descending), incidence \d/);
     await screenshot(page, 'workflow-02-site');
     await page.locator('[data-testid="use-site-passes"]').click();
     await page.waitForURL(/\/passes$/);

@@ -12,6 +12,7 @@ import { ApplyToCurrentButton, DeletedBanner, WhenStored } from './banners.tsx';
 import { BackLink, DemoBadge, ErrorNote, SaveButton, SavedNote } from './bits.tsx';
 import { shownErrors } from './inputs.tsx';
 import { LogbookShell } from './LogbookShell.tsx';
+import { NextPass } from './NextPass.tsx';
 import { changedFields, parseSiteForm, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
 import { SiteFormFields } from './SiteFormFields.tsx';
 import { GeometryTable, InspectionList, InstallationList, ReflectorSection, SiteDetails } from './SiteSections.tsx';
@@ -116,9 +117,7 @@ function SiteBody(props: { detail: SiteDetail }) {
           </button>
         </div>
       ) : null}
-      <p className="gm-note" data-testid="next-pass">
-        Next pass: open Passes with this site to compute it.
-      </p>
+      <NextPass site={site} />
 
       <section className="gm-section" aria-labelledby="details-h">
         <h2 id="details-h">Site details</h2>
