@@ -10,21 +10,10 @@ import {
   linearStd,
   type OrientationSample,
 } from '../../../src/core/alignment/smoothing.ts';
+import { noise } from '../../helpers/random.ts';
 
 const TOL_DEG = 1e-9; // closed-form cases: rounding only
 const angleDiffDeg = (a: number, b: number) => Math.abs(((((a - b) % 360) + 540) % 360) - 180);
-
-/** Deterministic noise (mulberry32) so the tests never depend on Math.random or the clock. */
-function noise(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return (((t ^ (t >>> 14)) >>> 0) / 4294967296) * 2 - 1; // uniform in [−1, 1)
-  };
-}
 
 describe('circular statistics (Mardia & Jupp, Directional Statistics, 2000, §2.2–2.3)', () => {
   it('averages across north: 359° and 1° → 0°; 350°, 10°, 0° → 0°', () => {

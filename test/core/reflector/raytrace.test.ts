@@ -9,6 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { effectiveAreaRatio, type TrihedralShape } from '../../../src/core/reflector/trihedral.ts';
+import { mulberry32 } from '../../helpers/random.ts';
 
 type V3 = [number, number, number];
 const GRID = 160;
@@ -16,18 +17,6 @@ const TOL_DB = 0.1; // stratified ray-grid sampling error, measured ≤ 0.025 dB
 const WINDOW_DB = 6; // compare where the loss is below this (bundle large enough to sample well)
 const EPS = 1e-12;
 const SEED = 20_240_917;
-
-/** Small seeded PRNG (the public-domain 32-bit "mulberry32" generator), uniform in [0, 1). */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 function onPanel(shape: TrihedralShape, a: number, b: number): boolean {
   if (a < 0 || b < 0) return false;

@@ -4,23 +4,13 @@ import { deviceAnglesFromPlateOrientation } from '../../../src/core/alignment/de
 import { DEFAULT_STEADINESS } from '../../../src/core/alignment/smoothing.ts';
 import { HOLD_STEP_MS, LiveAlignment } from '../../../src/ui/pages/align/liveAlign.ts';
 import type { OrientationReading } from '../../../src/sensors/index.ts';
+import { noise } from '../../helpers/random.ts';
 
 const TOL_DEG = 1e-6;
 const SENSOR_PERIOD_MS = 16; // ~60 Hz, as phones send
 /** Amplitude of the hand shake in the "not steady" case, degrees (well above the 0.2° tilt threshold). */
 const SHAKE_DEG = 1;
 
-/** Deterministic noise in [−1, 1) (mulberry32), so no test depends on Math.random. */
-function noise(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return (((t ^ (t >>> 14)) >>> 0) / 4294967296) * 2 - 1;
-  };
-}
 const angleDiffDeg = (a: number, b: number) => Math.abs(((((a - b) % 360) + 540) % 360) - 180);
 
 /** A reading a phone on a plate with this (magnetic) orientation would send. */

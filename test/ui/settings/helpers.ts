@@ -1,23 +1,8 @@
 /** One isolated fake-indexeddb database per test, deleted afterwards. */
 import 'fake-indexeddb/auto';
-import { afterEach, beforeEach } from 'vitest';
-import { openGlintmarkDb, type GlintmarkDb } from '../../../src/data/index.ts';
 import type { SaveFileResult } from '../../../src/sensors/backupFile.ts';
 
-export function useTestDb(): () => GlintmarkDb {
-  let db: GlintmarkDb | undefined;
-  beforeEach(() => {
-    db = openGlintmarkDb(`settings-${crypto.randomUUID()}`);
-  });
-  afterEach(async () => {
-    await db?.delete();
-    db = undefined;
-  });
-  return () => {
-    if (!db) throw new Error('useTestDb: no database outside a test');
-    return db;
-  };
-}
+export { useTestDb } from '../../data/helpers.ts';
 
 /** A file saver stub that keeps what it was given. */
 export function memorySaver(fail?: string) {
