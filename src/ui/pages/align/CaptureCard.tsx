@@ -1,28 +1,19 @@
 /** Capture ~3 s of steady readings (or typed readings from other instruments) for the logbook. */
 import { useState } from 'react';
 import { useHistory } from 'react-router-dom';
-import type { AzimuthReading } from '../../../core/alignment/methodCheck.ts';
-import type { Reflector } from '../../../core/reflector/trihedral.ts';
 import { NumberField, Segmented } from '../../components/fields.tsx';
 import { fmtNum } from '../../format.ts';
 import { workflow, type Capture } from '../../state/workflow.ts';
 import { buildCapture, buildManualCapture, METHOD_LABEL, METHOD_SHORT, type CaptureRequest, type ManualForm } from './captureAlign.ts';
-import type { DeclinationView, PassItem } from './computeAlign.ts';
 import type { LiveAlignment } from './liveAlign.ts';
 
 type PhoneMethod = CaptureRequest['method'];
 
-export interface CaptureCardProps {
+/** What a capture needs from the screen (the request's fields that do not change per tap), plus the live state. */
+export interface CaptureCardProps
+  extends Pick<CaptureRequest, 'steady' | 'declination' | 'tiltBiasDeg' | 'independent' | 'methodToleranceDeg' | 'fieldDisturbed' | 'reflector' | 'passes'> {
   live: LiveAlignment;
-  steady: boolean;
   compassAvailable: boolean;
-  declination: DeclinationView;
-  tiltBiasDeg: number;
-  independent: readonly AzimuthReading[];
-  methodToleranceDeg: number;
-  fieldDisturbed: boolean;
-  reflector: Reflector;
-  passes: readonly PassItem[];
   capture: Capture | null;
 }
 
