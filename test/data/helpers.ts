@@ -147,3 +147,30 @@ export async function seedSample(db: GlintmarkDb) {
   await siteRepo.update(db, site2.id, { name: 'Hollin Ridge' }, { by: 'Bo Marsh', nowMs: T0_MS + 40 });
   return { site, site2, gone, refl, geo, inst, photo, insp };
 }
+
+/**
+ * SHA-256 (hex) of the whole database: every table's rows in key order, canonical JSON with sorted keys, each
+ * blob replaced by the SHA-256 of its bytes and its type. Equal before and after a refused operation proves the
+ * operation changed nothing, photo bytes included.
+ */
+export async function hashDb(db: GlintmarkDb): Promise<string> {
+  const hex = (buf: ArrayBuffer) => Array.from(new Uint8Array(buf), (b) => b.toString(16).padStart(2, '0')).join('');
+  const canonical = async (v: unknown): Promise<unknown> => {
+    if (v instanceof Blob) return { $blob: hex(await crypto.subtle.digest('SHA-256', await v.arrayBuffer())), type: v.type };
+    if (Array.isArray(v)) return Promise.all(v.map(canonical));
+    if (v !== null && typeof v === 'object') {
+      const out: Record<string, unknown> = {};
+      for (const k of Object.keys(v).sort()) out[k] = await canonical((v as Record<string, unknown>)[k]);
+      return out;
+    }
+    return v;
+  };
+  const tables: Record<string, unknown> = {};
+  for (const t of [...db.tables].sort((a, b) => a.name.localeCompare(b.name))) {
+    const keys = (await t.toCollection().primaryKeys()).map(String).sort();
+    const rows = [];
+    for (const k of keys) rows.push(await canonical(await t.get(k)));
+    tables[t.name] = rows;
+  }
+  return hex(await crypto.subtle.digest('SHA-256', new TextEncoder().encode(JSON.stringify(tables))));
+}
