@@ -57,7 +57,10 @@ describe('glintmark passes', () => {
     expect(tracks.length).toBeGreaterThanOrEqual(4);
     for (const t of tracks) {
       expect(t.passTimesUtc[0]).toBe(t.nextTimeUtc);
-      if (t.passTimesUtc.length > 1) expect(t.repeatDays as number).toBeCloseTo(12, 3);
+      // A 12-day repeat (src/demo/elements.ts) puts every track's first pass in the first 12 days of a 30-day
+      // window, so every track has at least two passes and repeats after 12 days.
+      expect(t.passTimesUtc.length).toBeGreaterThanOrEqual(2);
+      expect(t.repeatDays as number).toBeCloseTo(12, 3);
     }
   });
 
