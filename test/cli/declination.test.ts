@@ -46,7 +46,7 @@ describe('glintmark declination', () => {
   it('bad input: missing, non-numeric, out of range, unknown option, garbage or impossible dates', async () => {
     await expectUsageError(['declination', '--lat', '10', '--date', '2027-01-01'], /missing --lon/);
     await expectUsageError(['declination', '--lat', 'ten', '--lon', '10', '--date', '2027-01-01'], /--lat must be a number/);
-    await expectUsageError(['declination', '--lat', '95', '--lon', '10', '--date', '2027-01-01'], /--lat must be in \[-90, 90\]°/);
+    await expectUsageError(['declination', '--lat', '95', '--lon', '10', '--date', '2027-01-01'], /--lat must be in \[-90, 90\] degrees/);
     await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', '2027-01-01', '--year', '2027'], /unknown option --year/);
     await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', 'July 2 2027'], /--date must be an ISO 8601/);
     await expectUsageError(['declination', '--lat', '10', '--lon', '10', '--date', '2027-02-29'], /not a real date/);

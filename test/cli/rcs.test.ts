@@ -57,7 +57,7 @@ describe('glintmark rcs', () => {
     [[...BASE, '--elevation', '95', '--azimuth-offset', '0'], /elevation must be in \[-90, 90\]°, got 95/],
     [[...BASE, '--elevation', '40', '--azimuth-offset', '181'], /azimuth-offset must be in \[-180, 180\]°, got 181/],
     [['rcs', '--shape', 'round', '--edge', '1', '--wavelength', '0.05', '--elevation', '40', '--azimuth-offset', '0'], /shape must be one of triangular, square, got "round"/],
-    [['rcs', '--shape', 'square', '--edge', '0', '--wavelength', '0.05', '--elevation', '40', '--azimuth-offset', '0'], /edge must be greater than 0 m, got 0/],
+    [['rcs', '--shape', 'square', '--edge', '0', '--wavelength', '0.05', '--elevation', '40', '--azimuth-offset', '0'], /--edge must be in \(0, 20\] m, got 0/],
     [[...BASE, '--elevation', '40', '--azimuth-offset', '0', '--tilt', '3'], /unknown option --tilt/],
     [[...BASE, '--elevation', '40', '--azimuth-offset', '0', '--elevation', '41'], /--elevation given 2 times/],
   ])('rejects bad input %#', async (argv, msg) => expectUsageError(argv, msg));

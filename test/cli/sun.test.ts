@@ -23,7 +23,7 @@ describe('glintmark sun', () => {
   it('bad input: missing, non-numeric, out of range, unknown option, garbage or zone-less times', async () => {
     await expectUsageError(['sun', '--lat', '52', '--lon', '0'], /missing --time/);
     await expectUsageError(['sun', '--lat', '52', '--lon', 'east', '--time', '2027-06-21T12:00Z'], /--lon must be a number/);
-    await expectUsageError(['sun', '--lat', '-91', '--lon', '0', '--time', '2027-06-21T12:00Z'], /--lat must be in \[-90, 90\]°/);
+    await expectUsageError(['sun', '--lat', '-91', '--lon', '0', '--time', '2027-06-21T12:00Z'], /--lat must be in \[-90, 90\] degrees/);
     await expectUsageError(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00Z', '--refraction', 'no'], /unknown option --refraction/);
     await expectUsageError(['sun', '--lat', '52', '--lon', '0', '--time', 'noon'], /--time must be an ISO 8601/);
     await expectUsageError(['sun', '--lat', '52', '--lon', '0', '--time', '2027-06-21T12:00'], /--time "2027-06-21T12:00" has no time zone; add Z for UTC/);
