@@ -13,6 +13,7 @@ export { geometryRepo, inspectionRepo, installationRepo, reflectorRepo } from '.
 export { history, versionAt } from './repo/revisions.ts';
 export {
   addPhoto,
+  fillPhotoHashes,
   getPhoto,
   listPhotos,
   softDeletePhoto,

@@ -24,6 +24,7 @@ import { deepEqual } from './equal.ts';
 import { BackupError } from './errors.ts';
 import { mergeElementSets } from './mergeElements.ts';
 import { resolveContext, type WriteContext } from './repo/context.ts';
+import { fillPhotoHashes } from './repo/photos.ts';
 import { makeRevision } from './repo/revisions.ts';
 import { liveSiteWithCode } from './repo/sites.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
@@ -61,7 +62,9 @@ const headOf = (row: Row, revs: readonly RevisionRecord[]) => revs.find((r) => r
 export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts: MergeOptions): Promise<MergeReport> {
   const { by, nowMs } = resolveContext(opts);
   const doc = validateBackup(input, { maxPhotoBytes: opts.maxPhotoBytes, checkReferences: false });
-  const rows = storedRows(doc);
+  const rows = await storedRows(doc);
+  // Photos stored before schema 5 get their hash first, so photos compare by their bytes' hash like any field.
+  await fillPhotoHashes(db);
   const incomingRevs = new Map<string, RevisionRecord[]>();
   for (const r of doc.tables.revisions) incomingRevs.set(`${r.table}:${r.recordId}`, [...(incomingRevs.get(`${r.table}:${r.recordId}`) ?? []), r]);
   for (const list of incomingRevs.values()) list.sort((x, y) => x.rev - y.rev || x.atMs - y.atMs || x.id.localeCompare(y.id));

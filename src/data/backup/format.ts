@@ -18,6 +18,7 @@
  * they are (see backup.ts); an empty list means "none" and restore replaces them with none.
  */
 import * as v from 'valibot';
+import { SHA256_HEX } from '../hash.ts';
 import { lineText, oneOf, timeMs, uuid } from '../schema/fields.ts';
 import { recordMetaSchema } from '../schema/records.ts';
 import {
@@ -39,7 +40,7 @@ export const BACKUP_FORMAT = 'glintmark-backup';
 export const BACKUP_FORMAT_VERSION = 1;
 
 /** A photo row in a backup: the stored row with the blob replaced by its bytes in base64. */
-export type BackupPhoto = Omit<PhotoRecord, 'blob'> & { dataBase64: string };
+export type BackupPhoto = Omit<PhotoRecord, 'blob' | 'sha256'> & { sha256?: string | null; dataBase64: string };
 /** A conflict row in a backup; a photo version inside `other` carries dataBase64 instead of blob. */
 export type BackupConflict = ConflictRecord;
 
@@ -92,6 +93,9 @@ export const photoRowSchema = v.strictObject({
   role: lineText('photo role', { min: 1, max: 32 }),
   mime: v.pipe(v.string('mime must be text'), v.regex(/^image\/[a-z0-9.+-]+$/, 'mime must be an image type such as image/jpeg')),
   bytes: v.pipe(v.number('bytes must be a number'), v.integer('bytes must be a whole number'), v.minValue(1, 'bytes must be 1 or more')),
+  // Schema 5. Optional: backups written before it have none (the restore computes it from the bytes); when
+  // present it must match the bytes.
+  sha256: v.optional(v.nullable(v.pipe(v.string('sha256 must be text'), v.regex(SHA256_HEX, 'sha256 must be 64 lowercase hexadecimal digits')))),
   takenAtMs: timeMs('photo time'),
   dataBase64: v.string('the photo data (dataBase64) must be text'),
 });

@@ -15,7 +15,7 @@ describe('saveFullBackup', () => {
     expect(r.ok && r.value.counts).toMatchObject({ sites: 1, revisions: 1, elements: 0 });
     expect(files).toHaveLength(1);
     const doc = validateBackup(files[0].text);
-    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 1, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { version: '9.9.9', schemaVersion: 4 } });
+    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 1, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { version: '9.9.9', schemaVersion: 5 } });
     expect(await getMeta(db(), 'lastBackupAtMs')).toBe(T0_MS);
   });
 
