@@ -1,6 +1,7 @@
 /**
- * Full backup and restore. A backup is ONE versioned JSON document (see backup/format.ts). Restore checks
- * the whole document first (backup/validate.ts) and then replaces the record tables in ONE transaction:
+ * Full backup and restore. A backup is a ZIP archive (backup/archive.ts: records.json, each photo by its SHA-256,
+ * a manifest) or, as written before, ONE versioned JSON document (backup/format.ts); both restore. Restore checks
+ * the whole backup first (every hash, backup/validate.ts) and then replaces the record tables in ONE transaction:
  * either every row lands or none does. Drafts and meta stay as they are.
  */
 import { base64ToBytes, blobToBase64 } from './base64.ts';
@@ -10,10 +11,13 @@ import { sha256Hex } from './hash.ts';
 import { fillPhotoHashes } from './repo/photos.ts';
 import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, type BackupDocument, type BackupPhoto, type BackupTable } from './backup/format.ts';
 import { checkBackup, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import { readBackupArchive } from './backup/archive.ts';
+import { looksLikeZip } from './backup/zipRead.ts';
 import { setMeta } from './repo/meta.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
 
 export { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, validateBackup };
+export { ARCHIVE_FORMAT, ARCHIVE_FORMAT_VERSION, ARCHIVE_MIME, exportBackupArchive, readBackupArchive, type ArchiveExportOptions, type ArchiveManifest } from './backup/archive.ts';
 export type { BackupCheckOptions, BackupDocument, BackupPhoto, BackupTable };
 
 export interface ExportOptions {
@@ -98,14 +102,38 @@ export async function storedRows(doc: BackupDocument): Promise<StoredRows> {
   return { ...t, photos, conflicts };
 }
 
+/** A backup read and checked in full, with its rows ready to store. */
+export interface ReadBackup {
+  doc: BackupDocument;
+  hasElements: boolean;
+  rows: StoredRows;
+  /** 'archive' for a .glintmark.zip, 'json' for a JSON backup (format 1). */
+  layout: 'archive' | 'json';
+}
+
 /**
- * Validate the whole document, then write it in one transaction. Resolves with the row counts written;
- * rejects with BackupError (nothing written) or a Dexie error (nothing written).
+ * Read and check any backup: a backup archive (a Blob starting with a ZIP header), a JSON backup as a Blob or File,
+ * its text, or the parsed document. Nothing is written; throws BackupError.
+ */
+export async function readBackup(input: Blob | string | unknown, opts: BackupCheckOptions = {}): Promise<ReadBackup> {
+  if (input instanceof Blob) {
+    if (await looksLikeZip(input)) {
+      const a = await readBackupArchive(input, opts);
+      return { doc: a.doc, hasElements: a.hasElements, rows: a.rows, layout: 'archive' };
+    }
+    input = await input.text();
+  }
+  const { doc, hasElements } = checkBackup(input, opts);
+  return { doc, hasElements, rows: await storedRows(doc), layout: 'json' };
+}
+
+/**
+ * Validate the whole backup (archive or JSON, see readBackup), then write it in one transaction. Resolves with the
+ * row counts written; rejects with BackupError (nothing written) or a Dexie error (nothing written).
  * A backup without an `elements` list (written before schema 4) leaves the phone's element sets as they are.
  */
-export async function restoreBackup(db: GlintmarkDb, input: string | unknown, opts: RestoreOptions = {}): Promise<TableCounts> {
-  const { doc, hasElements } = checkBackup(input, opts);
-  const rows = await storedRows(doc);
+export async function restoreBackup(db: GlintmarkDb, input: Blob | string | unknown, opts: RestoreOptions = {}): Promise<TableCounts> {
+  const { hasElements, rows } = await readBackup(input, opts);
   const tables = BACKUP_TABLES.filter((t) => hasElements || t !== 'elements');
   return db.transaction('rw', [...BACKUP_TABLES, 'siteVisits'], async () => {
     if (!opts.replace) {

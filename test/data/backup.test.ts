@@ -63,7 +63,9 @@ describe('backup and restore', () => {
   it('refuses another format and a newer format version', async () => {
     const doc = await seededDoc();
     await expectRefused({ type: 'FeatureCollection', features: [] }, 'wrong-format', 'This file is not a Glintmark backup (its format is null, expected "glintmark-backup")');
-    await expectRefused({ ...doc, formatVersion: 2 }, 'wrong-version', 'This backup was made by a newer Glintmark (backup format 2; this app reads format 1). Update the app');
+    await expectRefused({ ...doc, formatVersion: 3 }, 'wrong-version', 'This backup was made by a newer Glintmark (backup format 3; this app reads format 1). Update the app');
+    // Format 2 is the records.json inside a backup archive: useless without the archive's photos.
+    await expectRefused({ ...doc, formatVersion: 2 }, 'wrong-format', 'This is the records file from inside a backup archive, without its photos.');
     await expectRefused(JSON.stringify({ ...doc, tables: { ...doc.tables, sites: undefined } }), 'invalid-record', 'its header or table lists are damaged. tables.sites: is required');
   });
 
