@@ -17,7 +17,7 @@ import { setMeta } from './repo/meta.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
 
 export { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, validateBackup };
-export { ARCHIVE_FORMAT, ARCHIVE_FORMAT_VERSION, ARCHIVE_MIME, exportBackupArchive, readBackupArchive, type ArchiveExportOptions, type ArchiveManifest } from './backup/archive.ts';
+export { ARCHIVE_FORMAT, ARCHIVE_FORMAT_VERSION, ARCHIVE_MIME, exportBackupArchive, exportBackupRecords, readBackupArchive, writeBackupArchive, type ArchiveExportOptions, type ArchiveManifest } from './backup/archive.ts';
 export type { BackupCheckOptions, BackupDocument, BackupPhoto, BackupTable };
 
 export interface ExportOptions {

@@ -47,6 +47,8 @@ export {
   backupToJson,
   exportBackup,
   exportBackupArchive,
+  exportBackupRecords,
+  writeBackupArchive,
   readBackup,
   ARCHIVE_FORMAT,
   ARCHIVE_FORMAT_VERSION,

@@ -77,18 +77,41 @@ export interface ArchiveExportOptions {
 
 type Row = Record<string, unknown>;
 
+const readTables = (db: GlintmarkDb) =>
+  db.transaction('r', [...BACKUP_TABLES], async () => {
+    const out: Record<string, Row[]> = {};
+    for (const t of BACKUP_TABLES) out[t] = (await db.table(t).toArray()) as Row[];
+    return out;
+  });
+
+/**
+ * The records of a backup without photo bytes (photo rows lose their blob): what records.json holds, for checks
+ * such as "changed since the last backup" that must not read every photo.
+ */
+export async function exportBackupRecords(db: GlintmarkDb, opts: ArchiveExportOptions): Promise<BackupDocument> {
+  const raw = await readTables(db);
+  const strip = (r: Row) => {
+    const { blob: _b, ...rest } = r;
+    return rest;
+  };
+  const tables = { ...raw, photos: raw.photos.map(strip), conflicts: raw.conflicts.map((c) => ({ ...c, other: strip(c.other as Row) })) };
+  const app = { name: 'glintmark', version: opts.appVersion, schemaVersion: CURRENT_SCHEMA_VERSION };
+  return { format: BACKUP_FORMAT, formatVersion: ARCHIVE_RECORDS_FORMAT_VERSION, exportedAtUtc: new Date(opts.nowMs ?? Date.now()).toISOString(), app, tables } as unknown as BackupDocument;
+}
+
 /**
  * Write every record table, the history, open conflicts, element sets and every photo as a backup archive.
  * Rejects (nothing is changed) when a stored photo no longer matches its hash.
  */
 export async function exportBackupArchive(db: GlintmarkDb, opts: ArchiveExportOptions): Promise<Blob> {
+  return (await writeBackupArchive(db, opts)).blob;
+}
+
+/** exportBackupArchive, with the manifest it wrote (counts for the crew's message). */
+export async function writeBackupArchive(db: GlintmarkDb, opts: ArchiveExportOptions): Promise<{ blob: Blob; manifest: ArchiveManifest }> {
   const nowMs = opts.nowMs ?? Date.now();
   await fillPhotoHashes(db);
-  const raw = await db.transaction('r', [...BACKUP_TABLES], async () => {
-    const out: Record<string, Row[]> = {};
-    for (const t of BACKUP_TABLES) out[t] = (await db.table(t).toArray()) as Row[];
-    return out;
-  });
+  const raw = await readTables(db);
 
   // Photo bytes by path (one entry per distinct content); rows name their entry.
   const files = new Map<string, { blob: Blob; sha256: string; bytes: number; id: string }>();
@@ -149,7 +172,7 @@ export async function exportBackupArchive(db: GlintmarkDb, opts: ArchiveExportOp
   }
   zip.end();
   if (failure) throw failure;
-  return new Blob(parts, { type: ARCHIVE_MIME });
+  return { blob: new Blob(parts, { type: ARCHIVE_MIME }), manifest };
 }
 
 const NOTHING = 'Nothing was changed on this phone.';
