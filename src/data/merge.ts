@@ -18,7 +18,7 @@
 import { storedRows } from './backup.ts';
 import type { BackupTable } from './backup/format.ts';
 import { BACKUP_TABLES } from './backup/format.ts';
-import { referenceIssues, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import { documentLookup, linkIssues, referenceIssues, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
 import type { GlintmarkDb } from './db.ts';
 import { deepEqual } from './equal.ts';
 import { BackupError } from './errors.ts';
@@ -77,6 +77,15 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
     const docIds = new Map(BACKUP_TABLES.map((t) => [t, new Set(rows[t].map((r) => r.id as string))]));
     const refs = referenceIssues(doc.tables, (t, id) => docIds.get(t)?.has(id) === true || local.get(t)?.has(id) === true);
     if (refs.length) throw new BackupError('dangling-reference', `The backup was not merged: ${refs[0].path} ${refs[0].message}.`, refs);
+    // The repositories' link rules, each row checked against the file's rows, then this phone's (read before any write).
+    const inDoc = documentLookup(doc.tables);
+    const localRows = new Map<string, Map<string, Record<string, unknown>>>();
+    for (const t of [...VERSIONED_TABLES]) localRows.set(t, new Map((await db.table(t).toArray()).map((r: Record<string, unknown>) => [r.id as string, r])));
+    const links = linkIssues(doc.tables, (t, id) => inDoc(t, id) ?? localRows.get(t)?.get(id));
+    if (links.length) {
+      const shown = links.slice(0, 5).map((i) => `${i.path}: ${i.message}`).join('; ');
+      throw new BackupError('dangling-reference', `The backup was not merged: some records are linked in a way this app never writes. ${shown}${links.length > 5 ? ` (and ${links.length - 5} more)` : ''}`, links);
+    }
 
     const skipRevisionsOf = new Set<string>();
     const keepConflict = async (table: VersionedTable, recordId: string, kept: 'local' | 'incoming', other: Record<string, unknown>, otherRevisions: RevisionRecord[], reason: string) => {
