@@ -128,6 +128,12 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
           r.unchanged++;
           continue;
         }
+        if ('demo' in mine && incoming.demo !== mine.demo) {
+          // Demo is a property of creation (repo/entity.ts): a version that flips it is never applied.
+          skipRevisionsOf.add(`${table}:${incoming.id}`);
+          await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `the incoming version marks this record as ${incoming.demo === true ? 'demo data' : 'real data'}; whether a record is demo is set when it is created, so the local version is kept`);
+          continue;
+        }
         const myRevs = await db.revisions.where('[table+recordId]').equals([table, incoming.id]).toArray();
         if (incoming.rev > mine.rev) {
           const myHead = headOf(mine, myRevs);
