@@ -3,7 +3,8 @@
  *
  * Rows match by id. For each incoming row of sites … inspections and photos:
  *  - not here → added;
- *  - same content (photo bytes never change after creation, so photos compare by their fields) → unchanged;
+ *  - same content → unchanged (photos compare their bytes too: the same photo id arriving with other bytes is a
+ *    conflict, ours kept, since photo bytes never change after creation);
  *  - higher rev → the incoming row replaces ours ("updated"); if our current version is not in the incoming
  *    history (both phones edited), ours is kept in the conflicts table and reported;
  *  - lower rev → ours stays ("localNewer"); if the incoming version is not in our history, it is kept as a conflict;
@@ -55,6 +56,16 @@ const withoutBlob = (r: Record<string, unknown>) => {
   return rest;
 };
 
+/** Whether two blobs hold the same bytes. */
+async function sameBytes(a: Blob, b: Blob): Promise<boolean> {
+  if (a.size !== b.size) return false;
+  const [x, y] = await Promise.all([a.arrayBuffer(), b.arrayBuffer()]);
+  const u = new Uint8Array(x);
+  const w = new Uint8Array(y);
+  for (let i = 0; i < u.length; i++) if (u[i] !== w[i]) return false;
+  return true;
+}
+
 /** The revision that produced `row` (same rev and time), if the list has it. */
 const headOf = (row: Row, revs: readonly RevisionRecord[]) => revs.find((r) => r.rev === row.rev && r.atMs === row.updatedAtMs);
 
@@ -66,6 +77,16 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
   for (const r of doc.tables.revisions) incomingRevs.set(`${r.table}:${r.recordId}`, [...(incomingRevs.get(`${r.table}:${r.recordId}`) ?? []), r]);
   for (const list of incomingRevs.values()) list.sort((x, y) => x.rev - y.rev || x.atMs - y.atMs || x.id.localeCompare(y.id));
   const revsOf = (t: VersionedTable, id: string) => incomingRevs.get(`${t}:${id}`) ?? [];
+
+  // Photo bytes are read before the transaction (a Blob read is not an IndexedDB request and would end it).
+  // Photos are never changed after creation, so what is read here is what the transaction sees.
+  const photosWithOtherBytes = new Set<string>();
+  const incomingPhotos = rows.photos as { id: string; blob?: unknown }[];
+  const localPhotos = await db.photos.bulkGet(incomingPhotos.map((p) => p.id));
+  for (const [i, mine] of localPhotos.entries()) {
+    const theirs = incomingPhotos[i].blob;
+    if (mine && theirs instanceof Blob && !(await sameBytes(mine.blob, theirs))) photosWithOtherBytes.add(mine.id);
+  }
 
   const report = Object.fromEntries(
     BACKUP_TABLES.map((t) => [t, { added: 0, updated: 0, unchanged: 0, localNewer: 0, conflicts: [] }]),
@@ -122,6 +143,11 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
         if (!mine) {
           await db.table(table).add(table === 'sites' ? await freeCode(incoming) : incoming);
           r.added++;
+          continue;
+        }
+        if (table === 'photos' && photosWithOtherBytes.has(incoming.id)) {
+          skipRevisionsOf.add(`${table}:${incoming.id}`);
+          await keepConflict(table, incoming.id, 'local', incoming, theirRevs, 'the same photo arrived with different bytes (photos never change after they are taken); the local photo is kept');
           continue;
         }
         if (deepEqual(withoutBlob(mine), withoutBlob(incoming))) {
