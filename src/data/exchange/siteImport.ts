@@ -17,7 +17,7 @@ import { WRITE_SCOPE } from '../repo/entity.ts';
 import type { WriteContext } from '../repo/context.ts';
 import { fieldIssues } from '../schema/validate.ts';
 import type { SiteFields, SiteRecord } from '../types.ts';
-import { CsvSyntaxError, parseCsv } from '../../core/text/csv.ts';
+import { CsvSyntaxError, parseCsv, unprotectCsvCell } from '../../core/text/csv.ts';
 
 export type SiteImportKind = 'csv' | 'geojson';
 
@@ -130,8 +130,10 @@ function parseCsvSites(text: string): Parsed {
       continue;
     }
     const raw: Raw = { extras: [] };
-    for (const c of Object.keys(COLUMNS) as Column[]) if (index[c] >= 0) raw[c] = r.fields[index[c]];
-    r.fields.forEach((v, i) => {
+    // Cells our export protected against spreadsheet formulas ("'=…") are read back as written.
+    const cells = r.fields.map(unprotectCsvCell);
+    for (const c of Object.keys(COLUMNS) as Column[]) if (index[c] >= 0) raw[c] = cells[index[c]];
+    cells.forEach((v, i) => {
       if (!known.has(i) && !IGNORED.has(names[i]) && v.trim() !== '') raw.extras.push([header.fields[i].trim(), v]);
     });
     candidates.push({ row: r.line, raw });
