@@ -12,6 +12,7 @@
  * Text is kept as plain strings: the UI must show it as text, never as HTML.
  */
 import type { GlintmarkDb } from '../db.ts';
+import { geoJsonCrsProblem } from './geojson.ts';
 import { siteRepo } from '../repo/sites.ts';
 import { WRITE_SCOPE } from '../repo/entity.ts';
 import type { WriteContext } from '../repo/context.ts';
@@ -151,6 +152,8 @@ function parseGeoJsonSites(text: string): Parsed {
   } catch {
     return { candidates: [], rejected: [{ row: 0, reason: 'not a GeoJSON file: the text is not JSON' }] };
   }
+  const crs = geoJsonCrsProblem(data);
+  if (crs) return { candidates: [], rejected: [{ row: 0, reason: crs }] };
   const o = (data ?? {}) as { type?: unknown; features?: unknown };
   const features = o.type === 'FeatureCollection' && Array.isArray(o.features) ? (o.features as unknown[]) : o.type === 'Feature' ? [data] : null;
   if (!features) return { candidates: [], rejected: [{ row: 0, reason: `not a GeoJSON FeatureCollection (its type is ${JSON.stringify(o.type ?? null)})` }] };
