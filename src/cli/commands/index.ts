@@ -13,6 +13,7 @@ import { command as sun } from './sun.ts';
 import { command as bearing } from './bearing.ts';
 import { command as layout } from './layout.ts';
 import { command as transform } from './transform.ts';
+import { command as apex } from './apex.ts';
 
 /** Every planner command, in the order `glintmark --help` lists them. */
-export const commands: readonly Command[] = [aim, rcs, misalign, size, precision, compromise, plan, passes, orient, declination, sun, bearing, layout, transform];
+export const commands: readonly Command[] = [aim, rcs, misalign, size, precision, compromise, plan, passes, orient, declination, sun, bearing, layout, transform, apex];
