@@ -8,7 +8,7 @@
 import { readFile } from 'node:fs/promises';
 import { fromArrayBuffer } from 'geotiff';
 import type { ElevationGrid, GridCrs } from '../core/horizon/grid.ts';
-import { UsageError } from './args.ts';
+import { UsageError, WorkError } from './args.ts';
 
 const GEOGRAPHIC_OK = new Map([
   [4326, 'WGS 84'],
@@ -71,7 +71,7 @@ export async function readElevationGrid(path: string): Promise<ElevationGrid> {
   try {
     buf = await readFile(path);
   } catch (e) {
-    throw new UsageError(`cannot read --dem ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+    throw new WorkError(`cannot read --dem ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
   }
   return elevationGridFromGeoTiff(buf.buffer.slice(buf.byteOffset, buf.byteOffset + buf.byteLength) as ArrayBuffer, path);
 }

@@ -35,8 +35,12 @@ describe('glintmark horizon', () => {
     expect(r.stdout).toMatch(/refraction ignored/);
     expect(r.stdout).toMatch(/^0\.0\s+0\.\d\d/m);
   });
-  it('bad input: missing file, not a TIFF, no georeferencing, unsupported CRS, rotated grid, observer outside', async () => {
-    await expectUsageError(['horizon', '--dem', join(dir, 'none.tif'), '--lat', '45', '--lon', '3', '--height', '2'], /cannot read --dem .*ENOENT/);
+  it('an unreadable file is a failed run (status 1), not a usage error', async () => {
+    const r = await runCli(['horizon', '--dem', join(dir, 'none.tif'), '--lat', '45', '--lon', '3', '--height', '2']);
+    expect(r.code).toBe(1);
+    expect(r.stderr).toMatch(/cannot read --dem .*ENOENT/);
+  });
+  it('bad input: not a TIFF, no georeferencing, unsupported CRS, rotated grid, observer outside', async () => {
     await expectUsageError(['horizon', '--dem', file('text.tif', 'height,1\n'), '--lat', '45', '--lon', '3', '--height', '2'], /is not a readable TIFF/);
     await expectUsageError(['horizon', '--dem', file('merc.tif', small([[GEOKEY.GTModelType, 1], [GEOKEY.ProjectedCSType, 3857]])), '--lat', '0', '--lon', '0', '--height', '2'], /projected CRS EPSG:3857 is not supported/);
     await expectUsageError(['horizon', '--dem', file('nad.tif', small([[GEOKEY.GTModelType, 2], [GEOKEY.GeographicType, 4267]])), '--lat', '0', '--lon', '0', '--height', '2'], /geographic CRS EPSG:4267 is not supported/);

@@ -5,7 +5,7 @@ import { beamwidth3dB } from '../../core/reflector/beamwidth.ts';
 import { clearanceForTracks, type HorizonPoint } from '../../core/survey/clearance.ts';
 import { CsvSyntaxError, parseCsv } from '../../core/text/csv.ts';
 import { requireInRange, requireLatDeg, requireLonDeg } from '../../core/validate.ts';
-import { UsageError, parseNumber, type Args } from '../args.ts';
+import { UsageError, WorkError, parseNumber, type Args } from '../args.ts';
 import type { Command } from '../command.ts';
 import { readGeometries, readShape } from '../common.ts';
 import { readElevationGrid } from '../dem.ts';
@@ -17,7 +17,7 @@ async function readSightings(path: string): Promise<HorizonPoint[]> {
   try {
     text = await readFile(path, 'utf8');
   } catch (e) {
-    throw new UsageError(`cannot read --sightings ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+    throw new WorkError(`cannot read --sightings ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
   }
   let rows;
   try {
