@@ -69,6 +69,8 @@ describe('glintmark precision', () => {
     expect(j.scrDb).toBeCloseTo(20, 9);
     expect(j.phaseStdRad).toBeCloseTo(0.0707107, 6);
     expect(j.losStdMm).toBeCloseTo(0.3121, 4); // REFERENCES.md §2 worked check [derived]
+    // Difference of two independent images with equal noise: variance adds, so √2 × 0.3121 mm.
+    expect(j.losStdDiffMm).toBeCloseTo(0.3121 * 1.41421356, 4);
   });
   it('warns when SCR is too low for the approximation', async () => {
     const j = (await runCli(['precision', '--rcs-dbsm', '15', '--clutter-db', '-10', '--cell-area', '100', '--wavelength', '0.05', '--json'])).json() as Obj;

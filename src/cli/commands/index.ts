@@ -12,6 +12,10 @@ import { command as declination } from './declination.ts';
 import { command as sun } from './sun.ts';
 import { command as bearing } from './bearing.ts';
 import { command as layout } from './layout.ts';
+import { command as transform } from './transform.ts';
+import { command as apex } from './apex.ts';
+import { command as horizon } from './horizon.ts';
+import { command as clearance } from './clearance.ts';
 
 /** Every planner command, in the order `glintmark --help` lists them. */
-export const commands: readonly Command[] = [aim, rcs, misalign, size, precision, compromise, plan, passes, orient, declination, sun, bearing, layout];
+export const commands: readonly Command[] = [aim, rcs, misalign, size, precision, compromise, plan, passes, orient, declination, sun, bearing, layout, transform, apex, horizon, clearance];
