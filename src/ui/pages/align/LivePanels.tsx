@@ -57,7 +57,7 @@ function Sub(props: { axis: 'azimuth' | 'tilt' | 'roll'; g: AxisGuidance<number 
         error {signedDeg(props.g.errorDeg)}
       </span>
       <span className="gm-align-instr" data-testid={`instruction-${props.axis}`}>
-        {props.g.within ? '✔ ' : '✖ '}
+        {props.g.within ? '✔ ' : ''}
         {props.g.instruction}
       </span>
     </>
