@@ -25,7 +25,7 @@ async function overflowing(page: Page): Promise<string[]> {
       if (el instanceof SVGElement) continue;
       const cs = getComputedStyle(el);
       if (cs.display === 'none' || cs.overflowX === 'auto' || cs.overflowX === 'scroll') continue;
-      if (el.clientWidth === 0) continue;
+      if (el.clientWidth <= 1) continue; // visually hidden (read by screen readers only)
       if (el.scrollWidth > el.clientWidth + 1) {
         const id = el.getAttribute('data-testid');
         out.push(`${el.tagName.toLowerCase()}${id ? `[${id}]` : ''}.${el.className}: ${el.scrollWidth} > ${el.clientWidth} "${(el.innerText || '').slice(0, 40)}"`);
@@ -72,8 +72,8 @@ describe('layout at 360 px', () => {
     await expect.poll(() => text(page, 'next-pass'), POLL).toMatch(/reflector MF-01-/);
     await check('site');
 
-    await page.locator('[data-testid="tab-settings"]').click();
-    await page.waitForURL(/\/settings$/);
+    await page.goto(BASE_URL + '/settings');
+    await page.locator('ion-title', { hasText: 'Settings' }).first().waitFor();
     await check('settings');
     expect(found).toEqual({ plan: [], passes: [], align: [], logbook: [], site: [], settings: [] });
     await ctx.close();

@@ -1,7 +1,7 @@
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
 import { useEffect, useMemo, useState } from 'react';
 import { Link, useHistory } from 'react-router-dom';
-import { useGeometries, useReflectors } from '../../../data/index.ts';
+import { geometryRepo, reflectorRepo, useGlintmarkDb, useReflectors } from '../../../data/index.ts';
 import { BAND_PRESETS } from '../../../core/radar/bands.ts';
 import { BigNumber, NumberField, Segmented, SelectField } from '../../components/fields.tsx';
 import { RcsPatternPlot } from '../../components/RcsPatternPlot.tsx';
@@ -36,15 +36,24 @@ export function PlanPage() {
   // The chosen site's reflector: its shape and edge, picked once per site (a typed shape or edge then stays).
   const siteId = wf.site?.id ?? '';
   const reflectors = useReflectors(siteId);
-  const siteGeometries = useGeometries(siteId);
-  const liveReflectors = useMemo(() => (reflectors ?? []).filter((r) => r.deletedAtMs === null), [reflectors]);
+  const liveReflectors = useMemo(() => (reflectors ?? []).filter((r) => r.deletedAtMs === null && r.siteId === siteId), [reflectors, siteId]);
   const pickedFor = wf.planReflector?.siteId;
+  const db = useGlintmarkDb();
   useEffect(() => {
-    if (!siteId || pickedFor === siteId || !reflectors || !siteGeometries || liveReflectors.length === 0) return;
-    const id = pickPlanReflector(liveReflectors, siteGeometries, workflow.get().geometries);
-    const r = liveReflectors.find((x) => x.id === id);
-    if (r) workflow.set({ planReflector: { siteId, id: r.id, label: r.label }, shape: r.shape, edgeM: String(r.edgeM) });
-  }, [siteId, pickedFor, reflectors, siteGeometries, liveReflectors]);
+    if (!siteId || pickedFor === siteId) return;
+    let live = true;
+    // Read both lists for this site at once (a live query may still hold the previous site's rows for a moment).
+    void Promise.all([reflectorRepo.list(db, { siteId }), geometryRepo.list(db, { siteId })])
+      .then(([rs, gs]) => {
+        if (!live || workflow.get().site?.id !== siteId || workflow.get().planReflector?.siteId === siteId) return;
+        const r = rs.find((x) => x.id === pickPlanReflector(rs, gs, workflow.get().geometries));
+        if (r) workflow.set({ planReflector: { siteId, id: r.id, label: r.label }, shape: r.shape, edgeM: String(r.edgeM) });
+      })
+      .catch(() => undefined); // the picker below still lists the reflectors; the crew chooses one by hand
+    return () => {
+      live = false;
+    };
+  }, [db, siteId, pickedFor, reflectors]);
   const chooseReflector = (id: string) => {
     const r = liveReflectors.find((x) => x.id === id);
     workflow.set(r ? { planReflector: { siteId, id: r.id, label: r.label }, shape: r.shape, edgeM: String(r.edgeM) } : { planReflector: { siteId, id: null, label: null } });
