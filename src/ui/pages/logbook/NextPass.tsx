@@ -11,7 +11,9 @@ const passWords = (p: { satellite: string; direction: string; incidenceDeg: numb
 /** The next pass of each track the site's reflectors serve (marked with the reflector), computed on the phone. */
 export function NextPass(props: { site: SiteRecord; geometries: GeometryRecord[]; reflectors: ReflectorRecord[] }) {
   const { latDeg, lonDeg, heightEllM, demo } = props.site;
-  const { geometries, reflectors } = props;
+  // Plain keys of what the search needs: it reruns only when these change, not on every record edit of the site.
+  const gKey = JSON.stringify(props.geometries.map((g) => ({ reflectorId: g.reflectorId, incidenceDeg: g.incidenceDeg, direction: g.direction, satellite: g.satellite, look: g.look, deletedAtMs: g.deletedAtMs })));
+  const rKey = JSON.stringify(props.reflectors.map((r) => ({ id: r.id, label: r.label, deletedAtMs: r.deletedAtMs })));
   const [state, setState] = useState<State | undefined>(undefined);
   useEffect(() => {
     let live = true;
@@ -19,14 +21,15 @@ export function NextPass(props: { site: SiteRecord; geometries: GeometryRecord[]
     void Promise.all([import('../passes/elementsStore.ts'), import('./nextPass.ts')])
       .then(async ([store, np]) => {
         const sets = await store.listElementSets();
-        const r = np.siteNextPasses(sets, { latDeg, lonDeg, heightEllM, demo }, geometries, reflectors, Date.now());
+        if (!live) return;
+        const r = np.siteNextPasses(sets, { latDeg, lonDeg, heightEllM, demo }, JSON.parse(gKey) as GeometryRecord[], JSON.parse(rKey) as ReflectorRecord[], Date.now());
         if (live) setState({ ok: true, r, sets: sets.length });
       })
       .catch((e: unknown) => live && setState({ ok: false, message: `Next pass: the stored element sets could not be read (${e instanceof Error ? e.message : String(e)}).` }));
     return () => {
       live = false;
     };
-  }, [latDeg, lonDeg, heightEllM, demo, geometries, reflectors]);
+  }, [latDeg, lonDeg, heightEllM, demo, gKey, rKey]);
 
   const zone = siteTimeZone(latDeg, lonDeg);
   let lines: string[];

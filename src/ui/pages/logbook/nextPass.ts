@@ -80,18 +80,24 @@ export function siteNextPasses(
     }
   };
   const live = reflectors.filter((r) => r.deletedAtMs === null);
+  const wanted = geometries.filter((g) => g.deletedAtMs === null && g.reflectorId !== null && live.some((r) => r.id === g.reflectorId));
+  // One search per set and look side over the union of the wanted incidences (±5°), then each pass matched to its track.
+  const found = new Map<string, Pass[]>();
+  for (const look of ['right', 'left'] as const) {
+    const gs = wanted.filter((g) => g.look === look);
+    if (gs.length === 0) continue;
+    const opts = { incidenceMinDeg: Math.max(0.5, Math.min(...gs.map((g) => g.incidenceDeg)) - 5), incidenceMaxDeg: Math.min(89.5, Math.max(...gs.map((g) => g.incidenceDeg)) + 5), look };
+    usableSets.forEach((set, i) => found.set(`${i}/${look}`, search(set, opts)));
+  }
   const served: ServedPass[] = [];
-  for (const g of geometries) {
-    if (g.deletedAtMs !== null || g.reflectorId === null) continue;
-    const r = live.find((x) => x.id === g.reflectorId);
-    if (!r) continue;
+  for (const g of wanted) {
+    const r = live.find((x) => x.id === g.reflectorId)!;
     let best: Pass | null = null;
-    const opts = { incidenceMinDeg: Math.max(0.5, g.incidenceDeg - 5), incidenceMaxDeg: Math.min(89.5, g.incidenceDeg + 5), look: g.look };
-    for (const set of usableSets) {
-      if (g.satellite && set.name.trim() && set.name.trim() !== g.satellite) continue;
-      const p = search(set, opts).find((x) => (g.direction === null || x.direction === g.direction) && Math.abs(x.incidenceDeg - g.incidenceDeg) <= SAME_TRACK_INCIDENCE_DEG);
+    usableSets.forEach((set, i) => {
+      if (g.satellite && set.name.trim() && set.name.trim() !== g.satellite) return;
+      const p = (found.get(`${i}/${g.look}`) ?? []).find((x) => (g.direction === null || x.direction === g.direction) && Math.abs(x.incidenceDeg - g.incidenceDeg) <= SAME_TRACK_INCIDENCE_DEG);
       if (p && (!best || p.timeMs < best.timeMs)) best = p;
-    }
+    });
     served.push({ reflectorLabel: r.label, geometry: g, pass: best });
   }
   served.sort((a, b) => (a.pass?.timeMs ?? Infinity) - (b.pass?.timeMs ?? Infinity));
