@@ -115,12 +115,12 @@ describe('glintmark passes: TLE problems', () => {
     const mixed = file('mixed.tle', `${DEMO_TLE}GLINT-X\n${L1}\n${L2.slice(0, 68)}0\n`);
     const r = await runCli(['passes', '--tle', mixed, ...SITE, ...WINDOW, '--json']);
     expect(r.code).toBe(0);
-    expect(r.stderr).toBe(`warning: ${mixed} line 6, column 69: checksum is 0 but the line adds up to 2 — the line was probably mistyped or cut; that part was skipped\n`);
+    expect(r.stderr).toBe(`warning: ${mixed} line 6, column 69: checksum of line 2 of the element set is 0 but its digits add up to 2 — the line was probably mistyped or cut; that part was skipped\n`);
     expect((r.json() as unknown[]).length).toBeGreaterThan(0);
   });
 
   it.each([
-    ['wrong checksum', `${NAME}\n${L1}\n${L2.slice(0, 68)}7\n`, /line 3, column 69: checksum is 7 but the line adds up to 2/],
+    ['wrong checksum', `${NAME}\n${L1}\n${L2.slice(0, 68)}7\n`, /line 3, column 69: checksum of line 2 of the element set is 7 but its digits add up to 2/],
     ['truncated line', `${NAME}\n${L1.slice(0, 50)}\n${L2}\n`, /line 2, column 51: line 1 of the element set has 50 characters but needs 69/],
     ['mismatched catalogue numbers', `${L1}\n${DEMO_TLE_B.trim().split('\n')[2]}\n`, /line 2, column 3: catalogue number 99002 does not match 99001/],
     ['wrong line number', `${NAME}\n${L1}\n3${L2.slice(1)}\n`, /line 3, column 1: line 2 of the element set must start with "2", found "3"/],

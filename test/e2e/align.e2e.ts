@@ -56,6 +56,24 @@ async function planAndAlign(page: Page): Promise<void> {
   await page.waitForURL(/\/align$/);
 }
 
+/** Open the disclosure under the Capture bar (target, method, declination, tolerance, passes). */
+async function openMore(page: Page): Promise<void> {
+  const d = page.locator('[data-testid="align-more"]');
+  if ((await d.getAttribute('open')) === null) await page.locator('[data-testid="align-more-summary"]').click();
+}
+
+/** The element's box lies inside the visible content area (below the toolbar, above the tab bar), page unscrolled. */
+async function inFirstScreen(page: Page, testId: string): Promise<{ inside: boolean; bottom: number; limit: number; scrollTop: number }> {
+  return page.evaluate(async (id) => {
+    const el = document.querySelector(`[data-testid="${id}"]`)!;
+    const r = el.getBoundingClientRect();
+    const bar = document.querySelector('ion-tab-bar')!.getBoundingClientRect();
+    const content = document.querySelector('ion-router-outlet .ion-page:not(.ion-page-hidden) ion-content') as (Element & { getScrollElement(): Promise<HTMLElement> }) | null;
+    const scrollTop = content ? (await content.getScrollElement()).scrollTop : -1;
+    return { inside: r.top >= 0 && r.bottom <= bar.top && r.height > 0, bottom: r.bottom, limit: bar.top, scrollTop };
+  }, testId);
+}
+
 let browser: Browser;
 beforeAll(async () => {
   browser = await launch();
@@ -71,14 +89,19 @@ describe('Align screen with an emulated compass', () => {
     const status = () => text(page, 'align-status');
     await expect.poll(status, POLL).toMatch(/within tolerance/i);
     expect(await text(page, 'compass-status')).toMatch(/Compass working/);
+    await screenshot(page, 'align-within');
+    await openMore(page);
     expect(await text(page, 'declination')).toMatch(/WMM2025/);
     expect(await text(page, 'live-azimuth')).toContain(TARGET.azimuthDeg.toFixed(1));
     expect(await text(page, 'live-tilt')).toContain(TARGET.tiltDeg.toFixed(1));
     expect(await text(page, 'tolerance-cost')).toMatch(/costs up to \d+\.\d\d dB/);
-    await screenshot(page, 'align-within');
+    // The preset's limits in degrees beside its cost (monitoring: ±2° azimuth, ±1° tilt, ±2° roll).
+    expect(await text(page, 'tolerance-limits')).toContain('±2° azimuth, ±1° tilt, ±2° roll');
+    await screenshot(page, 'align-within-more');
+    await page.locator('[data-testid="align-more-summary"]').click();
 
     // Capture once steady (3 s of readings), then hand over to the logbook.
-    await expect.poll(() => text(page, 'steadiness'), POLL).toMatch(/Steady/);
+    await expect.poll(() => text(page, 'capture-steady'), POLL).toMatch(/● Steady/);
     await page.locator('[data-testid="capture"]').click();
     await expect.poll(() => text(page, 'capture-result'), POLL).toMatch(/Compass/);
     expect(await text(page, 'capture-result')).toContain(`azimuth ${TARGET.azimuthDeg.toFixed(1)}° true`);
@@ -111,6 +134,42 @@ describe('Align screen with an emulated compass', () => {
   });
 });
 
+describe('Align on a small phone', () => {
+  for (const size of [
+    { width: 360, height: 640 },
+    { width: 390, height: 844 },
+  ]) {
+    it(`at ${size.width} × ${size.height}, within tolerance shows the verdict, the three readings and Capture without scrolling`, async () => {
+      const { ctx, page, errors } = await openPhone(browser, 'absolute-orientation', plateQuaternion(TARGET));
+      await page.setViewportSize(size);
+      await planAndAlign(page);
+      await expect.poll(() => text(page, 'align-status'), POLL).toMatch(/within tolerance/i);
+      for (const id of ['align-status', 'live-azimuth', 'live-tilt', 'live-roll', 'error-azimuth', 'error-tilt', 'error-roll', 'capture']) {
+        const r = await inFirstScreen(page, id);
+        expect(r, id).toMatchObject({ inside: true, scrollTop: 0 });
+      }
+      // Large type for the readings: at least 30 px.
+      const px = await page.locator('[data-testid="live-tilt"]').evaluate((e) => parseFloat(getComputedStyle(e).fontSize));
+      expect(px).toBeGreaterThanOrEqual(30);
+      await screenshot(page, `align-within-${size.width}x${size.height}`);
+      expect(errors).toEqual([]);
+      await ctx.close();
+    });
+  }
+
+  it('captures by itself after a steady hold within tolerance when Auto is on', async () => {
+    const { ctx, page, errors } = await openPhone(browser, 'absolute-orientation', plateQuaternion(TARGET));
+    await page.setViewportSize({ width: 360, height: 640 });
+    await planAndAlign(page);
+    await page.locator('[data-testid="auto-capture"]').click();
+    expect(await page.locator('[data-testid="auto-capture"]').getAttribute('aria-pressed')).toBe('true');
+    await expect.poll(() => text(page, 'capture-result').catch(() => ''), { timeout: 20_000, interval: 200 }).toContain(`azimuth ${TARGET.azimuthDeg.toFixed(1)}° true`);
+    expect(await text(page, 'capture-message')).toMatch(/Captured by the steady hold/);
+    expect(errors).toEqual([]);
+    await ctx.close();
+  });
+});
+
 describe('Align screen without a compass', () => {
   it('says "compass unavailable" with relative orientation only, still guides tilt, and "cannot measure" upright', async () => {
     // Relative readings have an arbitrary alpha zero: only tilt and roll mean anything.
@@ -127,7 +186,8 @@ describe('Align screen without a compass', () => {
     expect(await text(page, 'live-tilt')).toContain(TARGET.tiltDeg.toFixed(1));
     await screenshot(page, 'align-compass-unavailable');
 
-    // The sun layout for the fixed instant is offered instead.
+    // The sun layout for the fixed instant is offered instead (behind the disclosure).
+    await openMore(page);
     await page.locator('[data-testid="sun-compute"]').click();
     await expect.poll(() => text(page, 'sun-layout'), POLL).toMatch(/Computed at 10:0\d:\d\d UTC/);
     expect(await text(page, 'sun-layout')).toMatch(/about ¼° a minute/);
@@ -151,6 +211,7 @@ describe('Align screen without a compass', () => {
     await fill(page, 'target-azimuth-input', '250');
     await fill(page, 'target-tilt-input', '12');
     await page.locator('[data-testid="use-target"]').click();
+    await openMore(page);
     await expect.poll(() => text(page, 'target-azimuth'), POLL).toContain('250.0');
     expect(errors).toEqual([]);
     await ctx.close();
@@ -180,6 +241,7 @@ describe('Align screen without a compass', () => {
     await cdp.send('Emulation.setGeolocationOverride', SITE);
     await emulateOrientation(cdp, 'absolute-orientation', quaternionFromW3c(0, 10, 0));
     await planAndAlign(page);
+    await openMore(page);
     await expect.poll(() => text(page, 'declination'), POLL).toMatch(/WMM2025 is valid from 2025-01-01 to 2030-01-01/);
     expect(await text(page, 'compass-status')).toMatch(/Compass working/);
     expect(await text(page, 'live-azimuth')).toContain('—');

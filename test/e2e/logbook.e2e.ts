@@ -171,6 +171,7 @@ describe('Logbook: durable records', () => {
     await expect.poll(() => txt('result-azimuth'), POLL).toContain('100.0');
     await click('go-align');
     await page.waitForURL(/\/align$/);
+    await click('align-more-summary'); // typed readings sit behind the disclosure under Capture
     await fillIn('manual-azimuth', '100.3');
     await fillIn('manual-tilt', '14.6');
     await fillIn('manual-roll', '0.2');

@@ -33,7 +33,10 @@ describe('Passes screen', () => {
     page.on('pageerror', (e) => errors.push(e.message));
     const cdp = await ctx.newCDPSession(page);
     await cdp.send('Emulation.setGeolocationOverride', SITE);
+    // The phone's own zone differs from the site's (the Netherlands, Europe/Amsterdam): times must follow the site.
+    await cdp.send('Emulation.setTimezoneOverride', { timezoneId: 'America/Los_Angeles' });
     await page.goto(BASE_URL + '/passes');
+    expect(await page.evaluate(() => Intl.DateTimeFormat().resolvedOptions().timeZone)).toBe('America/Los_Angeles');
 
     // Site from the (emulated) phone GNSS.
     await page.locator('[data-testid="use-gps"]').click();
@@ -50,6 +53,10 @@ describe('Passes screen', () => {
     await page.locator('[data-testid="compute-passes"]').click();
     await page.locator('[data-testid="track-0"]').waitFor();
     await expect.poll(() => text(page, 'passes-status')).toMatch(/\d+ passes in \d+ tracks/);
+    // The next pass in the site's zone, named (Central European Time in winter: UTC+1), beside UTC; days by the site's calendar.
+    expect(await text(page, 'next-pass-site-time')).toMatch(/^\w{3} \d{4}-\d\d-\d\d \d\d:\d\d:\d\d Europe\/Amsterdam \(GMT\+1\) site time$/);
+    expect(await text(page, 'timeline-caption')).toContain('Europe/Amsterdam');
+    expect(await page.locator('[data-testid="track-list"]').innerText()).not.toMatch(/America\/Los_Angeles|GMT-8/);
 
     const n = await page.locator('[data-testid^="track-"][data-incidence-deg]').count();
     expect(n).toBeGreaterThan(0);
@@ -98,7 +105,7 @@ describe('Passes screen', () => {
     lines[2] = l2.slice(0, 68) + String((Number(l2[68]) + 1) % 10);
     await fill(page, 'tle-text', lines.join('\n'));
     await page.locator('[data-testid="tle-add"]').click();
-    await expect.poll(() => text(page, 'tle-error-0')).toMatch(/^line 3, column 69: checksum is \d but the line adds up to \d/);
+    await expect.poll(() => text(page, 'tle-error-0')).toMatch(/^line 3, column 69: checksum of line 2 of the element set is \d but its digits add up to \d/);
     expect(await text(page, 'tle-message')).toMatch(/No element set was kept/);
     await page.locator('[data-testid="tle-errors"]').scrollIntoViewIfNeeded();
     await screenshot(page, 'passes-bad-tle');

@@ -11,6 +11,30 @@ afterAll(async () => {
 });
 
 describe('Plan screen', () => {
+  for (const size of [
+    { width: 360, height: 640 },
+    { width: 390, height: 844 },
+  ]) {
+    it(`on an empty phone (${size.width} × ${size.height}) says what to do first and offers no alignment target`, async () => {
+      const ctx = await phoneContext(browser);
+      const page = await ctx.newPage();
+      await page.setViewportSize(size);
+      await page.goto(BASE_URL + '/plan');
+      await page.locator('[data-testid="plan-empty"]').waitFor();
+      expect(await text(page, 'plan-empty')).toMatch(/No aim yet[\s\S]*site[\s\S]*Passes[\s\S]*type the pass geometry/);
+      expect(await page.locator('[data-testid="go-align"]').count()).toBe(0);
+      expect(await page.locator('[data-testid="result-azimuth"]').count()).toBe(0);
+      // The fields are empty; the examples are placeholders that say "e.g.".
+      expect(await page.locator('[data-testid="incidence-0"]').inputValue()).toBe('');
+      expect(await page.locator('[data-testid="incidence-0"]').getAttribute('placeholder')).toMatch(/^e\.g\. /);
+      // Align has no target from Plan either.
+      await page.goto(BASE_URL + '/align');
+      await expect.poll(() => text(page, 'plan-first')).toMatch(/Plan an aim first/);
+      await ctx.close();
+    });
+  }
+
+
   it('opens on Plan, aims a typed geometry, and marks a bad value in place', async () => {
     const ctx = await phoneContext(browser);
     const page = await ctx.newPage();

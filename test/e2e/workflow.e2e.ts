@@ -78,7 +78,7 @@ describe('one workflow from plan to record, offline', () => {
     await setOrientation(cdp, 'absolute-orientation', plateQuaternion(target, decl.value.declinationDeg));
     await expect.poll(() => text(page, 'align-status'), POLL).toMatch(/within tolerance/i);
     await screenshot(page, 'workflow-05-align-within');
-    await expect.poll(() => text(page, 'steadiness'), POLL).toMatch(/Steady/);
+    await expect.poll(() => text(page, 'capture-steady'), POLL).toMatch(/● Steady/);
     await page.locator('[data-testid="capture"]').click();
     await expect.poll(() => text(page, 'capture-result').catch(() => ''), POLL).toMatch(/azimuth/);
     await page.locator('[data-testid="go-logbook"]').click();

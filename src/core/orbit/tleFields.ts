@@ -111,9 +111,9 @@ function checkLine(line: string, lineNumber: number, which: 1 | 2): TleError | n
   if (!CATALOG.test(cat)) return at(3, `catalogue number "${cat}" must be 5 digits (or a letter and 4 digits)`);
   const stated = line[TLE_LINE_LENGTH - 1];
   const sum = tleChecksum(line);
-  if (!/\d/.test(stated)) return at(TLE_LINE_LENGTH, `the checksum must be a digit, found "${stated}" — the line was probably mistyped or cut`);
+  if (!/\d/.test(stated)) return at(TLE_LINE_LENGTH, `the checksum of ${what} must be a digit, found "${stated}" — the line was probably mistyped or cut`);
   if (Number(stated) !== sum) {
-    return at(TLE_LINE_LENGTH, `checksum is ${stated} but the line adds up to ${sum} — the line was probably mistyped or cut`);
+    return at(TLE_LINE_LENGTH, `checksum of ${what} is ${stated} but its digits add up to ${sum} — the line was probably mistyped or cut`);
   }
   for (const f of which === 1 ? LINE1_FIELDS : LINE2_FIELDS) {
     const problem = f.test(col(line, f.from, f.to));

@@ -24,12 +24,12 @@ export function DemoOffer() {
         import('../pages/passes/elementsStore.ts'),
       ]);
       const nowMs = Date.now();
-      await loadDemoScenario(getAppDb(), nowMs);
+      const demo = await loadDemoScenario(getAppDb(), nowMs);
       await addElementSets(parseTle(DEMO_TLE).sets, { demo: true, nowMs });
       const site = DEMO_SITES[0];
       const track = demoTracks(nowMs).find((t) => t.direction === 'descending');
       workflow.set({
-        site: { code: site.code, name: site.name, latDeg: site.latDeg, lonDeg: site.lonDeg, heightEllM: site.heightEllM, source: 'logbook' },
+        site: { id: demo.siteIds[0], code: site.code, name: site.name, latDeg: site.latDeg, lonDeg: site.lonDeg, heightEllM: site.heightEllM, source: 'logbook' },
         ...(track
           ? {
               geometries: [{

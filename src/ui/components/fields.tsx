@@ -31,6 +31,8 @@ export function NumberField(props: {
   unit?: string;
   testId?: string;
   hint?: ReactNode;
+  /** Shown greyed in an empty field; never a value (say "e.g." in it, so it reads as an example). */
+  placeholder?: string;
 }) {
   const id = useId();
   const errId = `${id}-err`;
@@ -45,6 +47,7 @@ export function NumberField(props: {
         data-testid={props.testId}
         inputMode="decimal"
         autoComplete="off"
+        placeholder={props.placeholder}
         value={props.value}
         aria-invalid={props.error ? 'true' : 'false'}
         aria-describedby={props.error ? errId : undefined}
@@ -152,8 +155,14 @@ export function BigNumber(props: { label: string; value: string; unit?: string; 
     <div className={`gm-card${props.tone ? ' gm-' + props.tone : ''}`}>
       <div className="gm-label">{props.label}</div>
       <div className="gm-big" data-testid={props.testId}>
-        {props.value}
-        {props.unit ? <span className="gm-mid">{props.unit}</span> : null}
+        <span className="gm-nowrap">{props.value}</span>
+        {/* A word unit (dBsm, mm) may drop to the next line on a narrow card; a degree sign stays with its number. */}
+        {props.unit ? (
+          <>
+            {/^[°′″]/.test(props.unit.trim()) ? '' : ' '}
+            <span className="gm-mid gm-nowrap">{props.unit.trim()}</span>
+          </>
+        ) : null}
       </div>
       {props.sub ? <div className="gm-note">{props.sub}</div> : null}
     </div>

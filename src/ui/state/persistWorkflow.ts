@@ -3,7 +3,7 @@
  * kills the app in the background reopens where the crew left off.
  */
 import { loadDraft, saveDraft, type GlintmarkDb } from '../../data/index.ts';
-import { DEFAULT_WORKFLOW, workflow, type Workflow } from './workflow.ts';
+import { DEFAULT_WORKFLOW, isLegacyExample, workflow, type Workflow } from './workflow.ts';
 
 const KEY = 'workflow';
 
@@ -20,7 +20,11 @@ function isWorkflow(v: unknown): v is Workflow {
 export async function restoreWorkflow(db: GlintmarkDb): Promise<void> {
   const before = workflow.get();
   const d = await loadDraft<unknown>(db, KEY);
-  if (d && isWorkflow(d.value) && workflow.get() === before) workflow.set({ ...DEFAULT_WORKFLOW, ...d.value });
+  if (d && isWorkflow(d.value) && workflow.get() === before) {
+    const w = d.value;
+    const geometries = w.geometries.every(isLegacyExample) && !w.target ? DEFAULT_WORKFLOW.geometries : w.geometries;
+    workflow.set({ ...DEFAULT_WORKFLOW, ...w, geometries });
+  }
 }
 
 /**

@@ -17,6 +17,8 @@ export interface Settings {
   /** Disagreement between azimuth methods that triggers a warning, degrees. */
   methodToleranceDeg: number;
   crewName: string;
+  /** Align captures by itself once the plate has been steady within tolerance for a moment (a hands-off hold). */
+  autoCapture: boolean;
   safetyAcknowledgedAtMs: number | null;
   /** When the first-run demo offer was answered (loaded or declined), so it is asked once. */
   demoOfferedAtMs: number | null;
@@ -32,6 +34,7 @@ export const DEFAULT_SETTINGS: Settings = {
   tiltBiasMeasuredAtMs: null,
   methodToleranceDeg: 3,
   crewName: '',
+  autoCapture: false,
   safetyAcknowledgedAtMs: null,
   demoOfferedAtMs: null,
 };

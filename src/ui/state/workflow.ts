@@ -52,6 +52,11 @@ export interface Workflow {
   shape: TrihedralShapeName;
   edgeM: string;
   band: string;
+  /**
+   * The logbook reflector whose shape and edge the Plan screen uses, for the site it was picked on (so it is picked
+   * once per site, and a typed shape or edge is not overwritten). id null: shape and edge typed by the crew.
+   */
+  planReflector?: { siteId: string; id: string | null; label: string | null };
   /** Target orientation from the Plan screen (null until valid). */
   target: { azimuthDeg: number; tiltDeg: number; rollDeg: number } | null;
   capture: Capture | null;
@@ -59,7 +64,8 @@ export interface Workflow {
 
 export const DEFAULT_WORKFLOW: Workflow = {
   site: null,
-  geometries: [{ incidenceDeg: '37', headingDeg: '190', look: 'right', source: 'typed' }],
+  // An empty row: a new phone has no aim until the crew chooses a site's pass or types a geometry (no example values).
+  geometries: [{ incidenceDeg: '', headingDeg: '', look: 'right', source: 'typed' }],
   shape: 'triangular',
   edgeM: '1.0',
   band: 'C',
@@ -68,3 +74,11 @@ export const DEFAULT_WORKFLOW: Workflow = {
 };
 
 export const workflow = createStore<Workflow>(DEFAULT_WORKFLOW);
+
+/**
+ * Older versions started the Plan screen with an example geometry (incidence 37°, heading 190°, right-looking) that
+ * looked like a real plan. A saved task still holding that untouched example has it replaced by an empty row.
+ */
+export function isLegacyExample(g: GeometryInput): boolean {
+  return g.source === 'typed' && g.label === undefined && g.incidenceDeg === '37' && g.headingDeg === '190' && g.look === 'right';
+}

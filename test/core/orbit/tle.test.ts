@@ -66,14 +66,14 @@ describe('parseTle: each bad set is reported with line, column and plain words',
     const r = parseTle(`${NAME}\n${L1}\n${bad}\n`);
     expect(r.sets).toEqual([]);
     expect(r.errors).toHaveLength(1);
-    expect(formatTleError(r.errors[0])).toBe('line 3, column 69: checksum is 7 but the line adds up to 2 — the line was probably mistyped or cut');
+    expect(formatTleError(r.errors[0])).toBe('line 3, column 69: checksum of line 2 of the element set is 7 but its digits add up to 2 — the line was probably mistyped or cut');
   });
 
   it('a mistyped digit is caught by the checksum', () => {
     const bad = put(L2, 14, '3'); // inclination 98.1838 → 98.1338
     const r = parseTle(`${L1}\n${bad}`);
     expect(r.errors[0]).toMatchObject({ lineNumber: 2, column: 69 });
-    expect(r.errors[0].message).toMatch(/checksum is 2 but the line adds up to 7/);
+    expect(r.errors[0].message).toMatch(/checksum of line 2 of the element set is 2 but its digits add up to 7/);
   });
 
   it('truncated line', () => {

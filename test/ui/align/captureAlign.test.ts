@@ -2,14 +2,16 @@ import { describe, expect, it } from 'vitest';
 import type { CapturedOrientation } from '../../../src/core/alignment/smoothing.ts';
 import { buildCapture, buildManualCapture, methodCheck, type CaptureRequest } from '../../../src/ui/pages/align/captureAlign.ts';
 import { declinationAt, passesFrom, reflectorFrom } from '../../../src/ui/pages/align/computeAlign.ts';
-import { DEFAULT_WORKFLOW } from '../../../src/ui/state/workflow.ts';
+import { DEFAULT_WORKFLOW, type Workflow } from '../../../src/ui/state/workflow.ts';
 
 const TOL_DEG = 1e-9;
 const SITE = { latDeg: 52.61, lonDeg: 0.31, heightEllM: 45, label: 'site MF-1' };
 const T_MS = Date.UTC(2026, 5, 15, 10, 0, 0);
 const DECL = declinationAt(SITE, T_MS);
 const DECL_DEG = DECL.ok ? DECL.declinationDeg : NaN;
-const PASSES = passesFrom(DEFAULT_WORKFLOW.geometries);
+/** One typed pass geometry (the screen starts with none). */
+const PLANNED: Workflow['geometries'] = [{ incidenceDeg: '37', headingDeg: '190', look: 'right', source: 'typed' }];
+const PASSES = passesFrom(PLANNED);
 const REFLECTOR = reflectorFrom(DEFAULT_WORKFLOW);
 
 /** A steady 3 s window whose compass (magnetic) azimuth makes `trueAz` once the declination is added. */

@@ -19,7 +19,7 @@ import {
 } from '../../../src/ui/pages/align/computeAlign.ts';
 import { LiveAlignment } from '../../../src/ui/pages/align/liveAlign.ts';
 import { DEFAULT_SETTINGS } from '../../../src/ui/state/settings.ts';
-import { DEFAULT_WORKFLOW } from '../../../src/ui/state/workflow.ts';
+import { DEFAULT_WORKFLOW, type Workflow } from '../../../src/ui/state/workflow.ts';
 
 const TOL_DEG = 1e-6;
 const TOL_DB = 1e-6;
@@ -27,7 +27,9 @@ const TOL_DB = 1e-6;
 const SITE: PositionInput = { latDeg: 52.61, lonDeg: 0.31, heightEllM: 45, label: 'site MF-1' };
 const T_MS = Date.UTC(2026, 5, 15, 10, 0, 0);
 const DECL = declinationAt(SITE, T_MS);
-const PASSES = passesFrom(DEFAULT_WORKFLOW.geometries);
+/** One typed pass geometry (the screen starts with none). */
+const PLANNED: Workflow['geometries'] = [{ incidenceDeg: '37', headingDeg: '190', look: 'right', source: 'typed' }];
+const PASSES = passesFrom(PLANNED);
 const REFLECTOR = reflectorFrom(DEFAULT_WORKFLOW);
 const TARGET = (() => {
   const a = aimForPass(PASSES[0].geometry);
@@ -169,7 +171,7 @@ describe('helpers', () => {
   });
 
   it('skips planned passes that do not parse', () => {
-    const p = passesFrom([...DEFAULT_WORKFLOW.geometries, { incidenceDeg: '95', headingDeg: '10', look: 'right', source: 'typed' }]);
+    const p = passesFrom([...PLANNED, { incidenceDeg: '95', headingDeg: '10', look: 'right', source: 'typed' }]);
     expect(p).toHaveLength(1);
   });
 

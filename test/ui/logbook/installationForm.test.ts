@@ -28,7 +28,7 @@ const CAPTURE: Capture = {
   atMs: T0_MS + 5_000,
   predictedLossDb: 0.4321,
 };
-const WF: Workflow = { ...DEFAULT_WORKFLOW, target: { azimuthDeg: 100, tiltDeg: 14.74, rollDeg: 0 }, capture: CAPTURE };
+const WF: Workflow = { ...DEFAULT_WORKFLOW, geometries: [{ incidenceDeg: '37', headingDeg: '190', look: 'right', source: 'typed' }], target: { azimuthDeg: 100, tiltDeg: 14.74, rollDeg: 0 }, capture: CAPTURE };
 const IDS = { siteId: '0b7d8a52-3f0e-4d52-9d7a-6c1f2b3a4e5f', reflectorId: '1c8e9b63-4a1f-4e63-8e8b-7d2a3c4b5f60' };
 
 describe('installation form', () => {
@@ -52,7 +52,7 @@ describe('installation form', () => {
       frequencyGhz: '5.405',
       captureAtMs: CAPTURE.atMs,
     });
-    expect(f.geometries).toEqual(DEFAULT_WORKFLOW.geometries);
+    expect(f.geometries).toEqual(WF.geometries);
     expect(f.notes).toBe('Align capture: mean of 45 readings, σ azimuth 0.31°, σ tilt 0.05°.');
     const p = parseInstallationForm(f);
     expect(p.errors).toEqual({});

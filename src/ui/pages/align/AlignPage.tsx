@@ -13,9 +13,9 @@ import { useStore } from '../../state/store.ts';
 import { settings } from '../../state/settings.ts';
 import { workflow } from '../../state/workflow.ts';
 import { AzimuthMethods } from './AzimuthMethods.tsx';
-import { CaptureCard } from './CaptureCard.tsx';
-import { computeAlign, CueGate, declinationAt, passesFrom, reflectorFrom, toleranceCost, toleranceFor } from './computeAlign.ts';
-import { LiveCards, StatusBanner, ToleranceCard } from './LivePanels.tsx';
+import { alignNotes, CaptureBar, CaptureMethodCard, takeCapture, type CaptureInputs, type PhoneMethod } from './CaptureCard.tsx';
+import { AutoCaptureGate, computeAlign, CueGate, declinationAt, declinationText, passesFrom, reflectorFrom, toleranceCost, toleranceFor, toleranceLimitsText } from './computeAlign.ts';
+import { LiveCards, StatusBanner, SteadinessDetail, ToleranceCard } from './LivePanels.tsx';
 import { PositionCard, usePosition } from './PositionCard.tsx';
 import { ReversalCard } from './ReversalCard.tsx';
 import { TargetCard } from './TargetCard.tsx';
@@ -51,13 +51,37 @@ export function AlignPage() {
   }
 
   const cueGate = useRef(new CueGate());
+  const autoGate = useRef(new AutoCaptureGate());
   const within = view.state === 'within' || view.state === 'tilt-roll-within';
   useEffect(() => {
     if (cueGate.current.update(within, Date.now())) sensors.cues.withinTolerance();
   }, [within]);
 
+  const [pickedMethod, setMethod] = useState<PhoneMethod | null>(null);
+  const method: PhoneMethod = pickedMethod ?? (status.kind === 'absolute' ? 'compass' : 'sun-shadow');
+  const inputs: CaptureInputs = {
+    live,
+    method,
+    steady: snap.steadiness.steady,
+    declination: decl,
+    tiltBiasDeg: st.tiltBiasDeg,
+    independent: readings,
+    methodToleranceDeg: st.methodToleranceDeg,
+    fieldDisturbed: disturbance?.disturbed ?? false,
+    reflector,
+    passes,
+  };
+  // Capture by a steady hold: within tolerance and steady for AUTO_CAPTURE_HOLD_MS, once per hold.
+  const holding = active && st.autoCapture && within && snap.steadiness.steady;
+  useEffect(() => {
+    const r = autoGate.current.update(holding, Date.now());
+    if (alignNotes.get().holdLeftMs !== r.holdLeftMs) alignNotes.set({ holdLeftMs: r.holdLeftMs });
+    if (r.capture) takeCapture(inputs, 'hold');
+  });
+
   const record = (r: AzimuthReading) => setReadings((rs) => [...rs.filter((x) => x.method !== r.method), r]);
   const askMotion = () => void sensors.orientation.requestPermission();
+  const tolText = `${st.tolerancePreset === 'custom' ? 'custom' : st.tolerancePreset} ${toleranceLimitsText(tol)}`;
 
   return (
     <IonPage>
@@ -68,10 +92,11 @@ export function AlignPage() {
       </IonHeader>
       <IonContent className="ion-padding">
         <main className="gm-align-page">
-          <h1 className="gm-label">Align the reflector</h1>
-          <TargetCard target={wf.target} />
+          <h1 className="gm-visually-hidden">Align the reflector</h1>
+          {/* First screen: verdict, the three readings and Capture, with no scrolling on a 360 × 640 phone. */}
+          {wf.target ? null : <TargetCard target={wf.target} />}
           <StatusBanner view={view} />
-          <p className={status.kind === 'absolute' ? 'gm-okt' : 'gm-warn'} data-testid="compass-status">
+          <p className={status.kind === 'absolute' ? 'gm-okt gm-compass-line' : 'gm-warn gm-compass-line'} data-testid="compass-status">
             {status.message}
             {view.state !== 'cannot-measure' && snap.compassAccuracyDeg !== null ? ` Compass accuracy ±${snap.compassAccuracyDeg.toFixed(0)}°.` : ''}
           </p>
@@ -80,45 +105,47 @@ export function AlignPage() {
               Allow motion sensors
             </button>
           ) : null}
-          <LiveCards view={view} steadiness={snap.steadiness} lastReadingAgeS={snap.lastReadingAgeS} />
-          <p className="gm-note">Lay the phone screen-up on the base plate, its top edge pointing out of the open side along the bisector.</p>
-          <p className={decl.ok ? 'gm-note' : 'gm-warn'} data-testid="declination">
-            {decl.ok ? decl.text : decl.message}
-          </p>
-          {disturbance ? (
-            <p className={disturbance.disturbed ? 'gm-warn' : 'gm-note'} data-testid="field-check">
-              {disturbance.message}
+          <LiveCards view={view} target={wf.target} />
+          <CaptureBar inputs={inputs} capture={wf.capture} autoCapture={st.autoCapture} />
+
+          <details className="gm-align-more" data-testid="align-more">
+            <summary data-testid="align-more-summary">
+              Target, method, declination, tolerance and passes
+              <span className="gm-note gm-more-sub">
+                {' '}
+                — tolerance {tolText}
+                {decl.ok ? `; declination ${declinationText(decl.declinationDeg)}` : ''}
+              </span>
+            </summary>
+            {wf.target ? <TargetCard target={wf.target} /> : null}
+            <p className="gm-note">Lay the phone screen-up on the base plate, its top edge pointing out of the open side along the bisector.</p>
+            <SteadinessDetail view={view} steadiness={snap.steadiness} lastReadingAgeS={snap.lastReadingAgeS} />
+            <p className={decl.ok ? 'gm-note' : 'gm-warn'} data-testid="declination">
+              {decl.ok ? decl.text : decl.message}
             </p>
-          ) : fieldUnavailable ? (
-            <p className="gm-note" data-testid="field-check">
-              {fieldUnavailable}
-            </p>
-          ) : null}
-          <ToleranceCard settings={st} cost={cost} view={view} />
-          <CaptureCard
-            live={live}
-            steady={snap.steadiness.steady}
-            compassAvailable={status.kind === 'absolute'}
-            declination={decl}
-            tiltBiasDeg={st.tiltBiasDeg}
-            independent={readings}
-            methodToleranceDeg={st.methodToleranceDeg}
-            fieldDisturbed={disturbance?.disturbed ?? false}
-            reflector={reflector}
-            passes={passes}
-            capture={wf.capture}
-          />
-          <AzimuthMethods
-            targetAzimuthDeg={wf.target?.azimuthDeg ?? null}
-            position={pos.position}
-            readings={readings}
-            onRecord={record}
-            compassTrueDeg={view.measured?.azimuthTrueDeg ?? null}
-            methodToleranceDeg={st.methodToleranceDeg}
-            fieldDisturbed={disturbance?.disturbed ?? false}
-          />
-          <PositionCard p={pos} site={wf.site} />
-          <ReversalCard live={live} steady={snap.steadiness.steady} biasDeg={st.tiltBiasDeg} biasAtMs={st.tiltBiasMeasuredAtMs} />
+            {disturbance ? (
+              <p className={disturbance.disturbed ? 'gm-warn' : 'gm-note'} data-testid="field-check">
+                {disturbance.message}
+              </p>
+            ) : fieldUnavailable ? (
+              <p className="gm-note" data-testid="field-check">
+                {fieldUnavailable}
+              </p>
+            ) : null}
+            <ToleranceCard settings={st} cost={cost} view={view} />
+            <CaptureMethodCard method={method} onMethod={setMethod} inputs={inputs} />
+            <AzimuthMethods
+              targetAzimuthDeg={wf.target?.azimuthDeg ?? null}
+              position={pos.position}
+              readings={readings}
+              onRecord={record}
+              compassTrueDeg={view.measured?.azimuthTrueDeg ?? null}
+              methodToleranceDeg={st.methodToleranceDeg}
+              fieldDisturbed={disturbance?.disturbed ?? false}
+            />
+            <PositionCard p={pos} site={wf.site} />
+            <ReversalCard live={live} steady={snap.steadiness.steady} biasDeg={st.tiltBiasDeg} biasAtMs={st.tiltBiasMeasuredAtMs} />
+          </details>
           <SafetyNotice hazards={['lifting', 'pinch', 'wind', 'lightning', 'traffic']} />
         </main>
       </IonContent>

@@ -75,6 +75,11 @@ export function AzimuthMethods(props: AzimuthMethodsProps) {
               Sun azimuth {fmtNum(sun.view.sunAzimuthDeg, 1)}° true, {fmtNum(sun.view.sunElevationDeg, 1)}° high; shadow points {fmtNum(sun.view.layout.shadowAzimuthDeg, 1)}°. Computed at{' '}
               {utcTime(sun.view.computedAtMs)}.
             </p>
+            {sun.view.lowSun ? (
+              <p className="gm-warn" data-testid="sun-low">
+                ⚠ {sun.view.lowSun}
+              </p>
+            ) : null}
             <p className="gm-warn">
               The shadow drifts about ¼° a minute (here now {fmtNum(Math.abs(sun.view.rateDegPerMin), 2)}° a minute): mark the shadow tip at once, or recompute.
             </p>
@@ -114,8 +119,9 @@ export function AzimuthMethods(props: AzimuthMethodsProps) {
 
       <div className="gm-card" style={{ marginBottom: 8 }}>
         <h3>Compass</h3>
+        {/* The 10 m stand-off for a vehicle is common practice, no source. */}
         <p>
-          The phone’s compass is corrected by the declination shown above. Steel pulls it by degrees: keep the vehicle well away (10 m or more, common practice, no source), and tools,
+          The phone’s compass is corrected by the declination shown above. Steel pulls it by degrees: keep the vehicle well away (10 m or more), and tools,
           rebar, steel stakes and other phones off the plate. On a steel base or reflector the compass cannot be trusted: use the sun or a reference bearing.
         </p>
         <p data-testid="compass-live">{props.compassTrueDeg === null ? 'No compass azimuth now.' : `Compass now reads ${fmtNum(props.compassTrueDeg, 1)}° true.`}</p>

@@ -3,10 +3,10 @@ import { useState } from 'react';
 import type { AxisGuidance } from '../../../core/alignment/guidance.ts';
 import type { SteadinessStatus } from '../../../core/alignment/smoothing.ts';
 import { requireInRange } from '../../../core/validate.ts';
-import { BigNumber, NumberField, parseField, Segmented } from '../../components/fields.tsx';
+import { NumberField, parseField, Segmented } from '../../components/fields.tsx';
 import { fmtNum } from '../../format.ts';
 import { settings, type Settings } from '../../state/settings.ts';
-import { signedDeg, type AlignView, type toleranceCost } from './computeAlign.ts';
+import { signedDeg, toleranceFor, toleranceLimitsText, type AlignTarget, type AlignView, type toleranceCost } from './computeAlign.ts';
 
 const BANNER_CLASS: Record<AlignView['state'], string> = {
   within: 'gm-within',
@@ -36,19 +36,26 @@ export function StatusBanner(props: { view: AlignView }) {
   );
 }
 
-function Sub(props: { axis: 'azimuth' | 'tilt' | 'roll'; g: AxisGuidance<number | null> | undefined }) {
-  if (!props.g) return null;
+/** Target, signed error and instruction under one measured axis. */
+function Sub(props: { axis: 'azimuth' | 'tilt' | 'roll'; g: AxisGuidance<number | null> | undefined; targetDeg: number | null }) {
+  const target = props.targetDeg !== null ? <span className="gm-reading-target">target {fmtNum(props.targetDeg, 1)}°</span> : null;
+  if (!props.g) return target;
   if (props.g.errorDeg === null) {
     return (
-      <span className="gm-align-instr" data-testid={`instruction-${props.axis}`}>
-        not measured: set it by sun shadow or a reference bearing (below)
-      </span>
+      <>
+        {target}
+        <span className="gm-align-instr" data-testid={`instruction-${props.axis}`}>
+          not measured: set it by sun shadow or a reference bearing
+        </span>
+      </>
     );
   }
   return (
     <>
-      <span data-testid={`error-${props.axis}`}>{props.g.errorDeg === null ? 'error —' : `error ${signedDeg(props.g.errorDeg)}`}</span>
-      <br />
+      {target}
+      <span className="gm-reading-error" data-testid={`error-${props.axis}`}>
+        error {signedDeg(props.g.errorDeg)}
+      </span>
       <span className="gm-align-instr" data-testid={`instruction-${props.axis}`}>
         {props.g.within ? '✔ ' : ''}
         {props.g.instruction}
@@ -57,22 +64,48 @@ function Sub(props: { axis: 'azimuth' | 'tilt' | 'roll'; g: AxisGuidance<number 
   );
 }
 
+function Reading(props: { axis: 'azimuth' | 'tilt' | 'roll'; label: string; value: number | null; g: AxisGuidance<number | null> | undefined; targetDeg: number | null }) {
+  const g = props.g;
+  const tone = g && g.errorDeg !== null ? (g.within ? ' gm-ok' : ' gm-bad') : '';
+  return (
+    <div className={`gm-reading${tone}`}>
+      <div className="gm-reading-head">
+        <span className="gm-label">{props.label}</span>
+        <span className="gm-reading-value" data-testid={`live-${props.axis}`}>
+          {props.value !== null ? fmtNum(props.value, 1) : '—'}°
+        </span>
+      </div>
+      <div className="gm-reading-sub">
+        <Sub axis={props.axis} g={g} targetDeg={props.targetDeg} />
+      </div>
+    </div>
+  );
+}
+
+/** The three readings with their targets and signed errors: compact, so that they, the verdict and Capture fit one screen. */
+export function LiveCards(props: { view: AlignView; target: AlignTarget | null }) {
+  const { view, target } = props;
+  const m = view.measured;
+  const g = view.guidance;
+  return (
+    <section className="gm-readings" aria-label="Measured">
+      <Reading axis="azimuth" label="Azimuth (true)" value={m?.azimuthTrueDeg ?? null} g={g?.azimuth} targetDeg={target?.azimuthDeg ?? null} />
+      <Reading axis="tilt" label="Tilt (open side up +)" value={m ? m.tiltDeg : null} g={g?.tilt} targetDeg={target?.tiltDeg ?? null} />
+      <Reading axis="roll" label="Roll (right side up +)" value={m ? m.rollDeg : null} g={g?.roll} targetDeg={target?.rollDeg ?? null} />
+    </section>
+  );
+}
+
 /** After this long without a new event, say that the value shown is held, s. */
 const QUIET_NOTE_AFTER_S = 10;
 
-export function LiveCards(props: { view: AlignView; steadiness: SteadinessStatus; lastReadingAgeS: number | null }) {
+/** The steadiness figures in full (behind the disclosure), and why no true azimuth is shown. */
+export function SteadinessDetail(props: { view: AlignView; steadiness: SteadinessStatus; lastReadingAgeS: number | null }) {
   const { view } = props;
   const m = view.measured;
-  const g = view.guidance;
-  const tone = (a: AxisGuidance<number | null> | undefined) => (a && a.errorDeg !== null ? (a.within ? 'ok' : 'bad') : undefined);
   const std = props.steadiness.std;
   return (
     <>
-      <section className="gm-cards" aria-label="Measured">
-        <BigNumber label="Azimuth (true)" value={m?.azimuthTrueDeg != null ? fmtNum(m.azimuthTrueDeg, 1) : '—'} unit="°" testId="live-azimuth" tone={tone(g?.azimuth)} sub={<Sub axis="azimuth" g={g?.azimuth} />} />
-        <BigNumber label="Tilt (open side up +)" value={m ? fmtNum(m.tiltDeg, 1) : '—'} unit="°" testId="live-tilt" tone={tone(g?.tilt)} sub={<Sub axis="tilt" g={g?.tilt} />} />
-        <BigNumber label="Roll (right side up +)" value={m ? fmtNum(m.rollDeg, 1) : '—'} unit="°" testId="live-roll" tone={tone(g?.roll)} sub={<Sub axis="roll" g={g?.roll} />} />
-      </section>
       {view.azimuthNote && m?.azimuthMagDeg !== null ? (
         <p className="gm-warn" data-testid="azimuth-note">
           {view.azimuthNote}
@@ -121,6 +154,9 @@ export function ToleranceCard(props: { settings: Settings; cost: ReturnType<type
           <NumberField label="Roll ±" unit="°" value={custom.roll} onChange={(x) => setC({ roll: x })} error={pr.error} testId="tol-roll" />
         </div>
       ) : null}
+      <p data-testid="tolerance-limits">
+        <b>Limits {toleranceLimitsText(toleranceFor(s))}.</b>
+      </p>
       <p data-testid="tolerance-cost">
         {c
           ? `At the limits this tolerance costs up to ${fmtNum(c.combinedWorstDb, 2)} dB (azimuth alone ${fmtNum(c.azimuthDb, 2)} dB, tilt alone ${fmtNum(c.tiltDb, 2)} dB, roll alone ${fmtNum(c.rollDb, 2)} dB), worst planned pass.`

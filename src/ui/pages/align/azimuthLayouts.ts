@@ -35,7 +35,28 @@ export function baselineField(text: string, unit: LengthUnit = 'm'): Parsed {
   return p.value === undefined ? p : { value: lengthToM(p.value, unit) };
 }
 
+/**
+ * Below this sun elevation the shadow method is advised against, degrees (common practice, no source). At 10° a pin's
+ * shadow is already 5.7 times its height (1 / tan 10°), so its tip is faint and soft-edged, the ground under a long
+ * shadow is rarely level (any slope across it moves the tip sideways), and the sun's azimuth moves fastest near the
+ * horizon; atmospheric refraction, about 0.5° at the horizon, also grows as the sun sinks (it does not change the
+ * azimuth, but it marks where the computed and seen sun begin to part).
+ */
+export const LOW_SUN_ELEVATION_DEG = 10;
+
+/** The words for a low sun, or null when the sun is high enough for the shadow method. */
+export function lowSunWarning(sunElevationDeg: number): string | null {
+  if (sunElevationDeg >= LOW_SUN_ELEVATION_DEG) return null;
+  const ratio = 1 / Math.tan((sunElevationDeg * Math.PI) / 180);
+  return (
+    `Low sun: ${sunElevationDeg.toFixed(1)}° above the horizon (under ${LOW_SUN_ELEVATION_DEG}°). Shadows are long and soft ` +
+    `(about ${ratio.toFixed(0)} times the pin’s height), so the tip is hard to mark. Use a reference bearing instead, or wait for a higher sun.`
+  );
+}
+
 export interface SunLayoutView {
+  /** Set when the sun is low (see LOW_SUN_ELEVATION_DEG): the layout is still given, with this warning. */
+  lowSun: string | null;
   sunAzimuthDeg: number;
   sunElevationDeg: number;
   rateDegPerMin: number;
@@ -56,6 +77,7 @@ export function sunLayoutView(pos: PositionInput | null, timeMs: number, targetA
     const rate = sunAzimuthRateDegPerMin({ latDeg: pos.latDeg, lonDeg: pos.lonDeg, heightM: pos.heightEllM ?? 0, timeMs });
     return {
       view: {
+        lowSun: lowSunWarning(sun.elevationDeg),
         sunAzimuthDeg: sun.azimuthDeg,
         sunElevationDeg: sun.elevationDeg,
         rateDegPerMin: rate,

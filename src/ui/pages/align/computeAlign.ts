@@ -221,6 +221,40 @@ export class CueGate {
   }
 }
 
+/** How long the plate must stay within tolerance AND steady before an automatic capture, ms. */
+export const AUTO_CAPTURE_HOLD_MS = 3000;
+
+/**
+ * Capture by a steady hold: says "capture now" once the plate has been within tolerance and steady without a break
+ * for AUTO_CAPTURE_HOLD_MS, then stays quiet until the plate has left tolerance (or lost steadiness) and come back,
+ * so one hold gives one capture. `holdLeftMs` is the countdown the screen shows (null when not holding).
+ */
+export class AutoCaptureGate {
+  private sinceMs: number | null = null;
+  private fired = false;
+  update(holding: boolean, nowMs: number): { capture: boolean; holdLeftMs: number | null } {
+    if (!holding) {
+      this.sinceMs = null;
+      this.fired = false;
+      return { capture: false, holdLeftMs: null };
+    }
+    this.sinceMs ??= nowMs;
+    if (this.fired) return { capture: false, holdLeftMs: null };
+    const left = AUTO_CAPTURE_HOLD_MS - (nowMs - this.sinceMs);
+    if (left <= 0) {
+      this.fired = true;
+      return { capture: true, holdLeftMs: 0 };
+    }
+    return { capture: false, holdLeftMs: left };
+  }
+}
+
+/** "±2° azimuth, ±1° tilt, ±2° roll": a tolerance's limits in degrees, as the presets show them. */
+export function toleranceLimitsText(t: AlignmentTolerance): string {
+  const d = (x: number) => `\u00b1${Number(x.toFixed(2))}\u00b0`;
+  return `${d(t.azimuthDeg)} azimuth, ${d(t.tiltDeg)} tilt, ${d(t.rollDeg)} roll`;
+}
+
 /** Position for the declination and the sun: the planned site first, then the phone's fix, then typed coordinates. */
 export function positionFrom(
   site: Workflow['site'],

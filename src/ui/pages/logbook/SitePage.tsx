@@ -5,6 +5,7 @@
 import { useEffect, useState } from 'react';
 import { useHistory, useParams } from 'react-router-dom';
 import { siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
+import { siteTimeZone } from '../../siteTime.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
@@ -70,6 +71,7 @@ function SiteBody(props: { detail: SiteDetail }) {
   const [error, setError] = useState<string | null>(null);
   const [timeline, setTimeline] = useState<TimelineEntry[] | null>(null);
   const deleted = site.deletedAtMs !== null;
+  const zone = siteTimeZone(site.latDeg, site.lonDeg);
 
   useEffect(() => {
     let live = true;
@@ -117,7 +119,7 @@ function SiteBody(props: { detail: SiteDetail }) {
           </button>
         </div>
       ) : null}
-      <NextPass site={site} />
+      <NextPass site={site} geometries={geometries} reflectors={reflectors} />
 
       <section className="gm-section" aria-labelledby="details-h">
         <h2 id="details-h">Site details</h2>
@@ -147,11 +149,11 @@ function SiteBody(props: { detail: SiteDetail }) {
       </section>
       <section className="gm-section" aria-labelledby="inst-h">
         <h2 id="inst-h">Installations ({installations.length})</h2>
-        <InstallationList installations={installations} reflectors={reflectors} />
+        <InstallationList installations={installations} reflectors={reflectors} zone={zone} />
       </section>
       <section className="gm-section" aria-labelledby="insp-h">
         <h2 id="insp-h">Inspections ({inspections.length})</h2>
-        <InspectionList inspections={inspections} reflectors={reflectors} />
+        <InspectionList inspections={inspections} reflectors={reflectors} zone={zone} />
       </section>
       <section className="gm-section" aria-labelledby="hist-h">
         <h2 id="hist-h">History</h2>

@@ -3,6 +3,7 @@ import { useState } from 'react';
 import { Link, useHistory } from 'react-router-dom';
 import type { GeometryRecord, InspectionRecord, InstallationRecord, ReflectorRecord, SiteRecord } from '../../../data/index.ts';
 import { fmtNum } from '../../format.ts';
+import { fmtUtcAndSite } from '../../siteTime.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
 import { DemoBadge } from './bits.tsx';
@@ -138,7 +139,7 @@ export function GeometryTable(props: { geometries: GeometryRecord[]; reflectors:
   );
 }
 
-export function InstallationList(props: { installations: InstallationRecord[]; reflectors: ReflectorRecord[] }) {
+export function InstallationList(props: { installations: InstallationRecord[]; reflectors: ReflectorRecord[]; zone?: string | null }) {
   if (props.installations.length === 0) return <p className="gm-note">No installation recorded.</p>;
   const label = (id: string) => props.reflectors.find((r) => r.id === id)?.label ?? '—';
   return (
@@ -146,7 +147,7 @@ export function InstallationList(props: { installations: InstallationRecord[]; r
       {props.installations.map((i) => (
         <li key={i.id}>
           <Link className="gm-lb-row" to={`/logbook/installation/${i.id}`} data-testid="installation-row">
-            <b>{fmtUtc(i.installedAtMs)}</b> · reflector {label(i.reflectorId)} <DemoBadge demo={i.demo} />
+            <b>{props.zone ? fmtUtcAndSite(i.installedAtMs, props.zone) : fmtUtc(i.installedAtMs)}</b> · reflector {label(i.reflectorId)} <DemoBadge demo={i.demo} />
             <p className="gm-lb-meta">
               Azimuth {fmtNum(i.measuredAzimuthDeg, 2)}° true (planned {fmtNum(i.plannedAzimuthDeg, 2)}°), tilt {fmtNum(i.measuredTiltDeg, 2)}°, roll{' '}
               {fmtNum(i.measuredRollDeg, 2)}° · {METHOD_WORDS[i.azimuthMethod]} · {i.photoIds.length} photo{i.photoIds.length === 1 ? '' : 's'}
@@ -158,7 +159,7 @@ export function InstallationList(props: { installations: InstallationRecord[]; r
   );
 }
 
-export function InspectionList(props: { inspections: InspectionRecord[]; reflectors: ReflectorRecord[] }) {
+export function InspectionList(props: { inspections: InspectionRecord[]; reflectors: ReflectorRecord[]; zone?: string | null }) {
   if (props.inspections.length === 0) return <p className="gm-note">No inspection recorded.</p>;
   const label = (id: string) => props.reflectors.find((r) => r.id === id)?.label ?? '—';
   return (
@@ -166,7 +167,7 @@ export function InspectionList(props: { inspections: InspectionRecord[]; reflect
       {props.inspections.map((i) => (
         <li key={i.id}>
           <Link className="gm-lb-row" to={`/logbook/inspection/${i.id}`} data-testid="inspection-row">
-            <b>{fmtUtc(i.inspectedAtMs)}</b> · reflector {label(i.reflectorId)} <DemoBadge demo={i.demo} />
+            <b>{props.zone ? fmtUtcAndSite(i.inspectedAtMs, props.zone) : fmtUtc(i.inspectedAtMs)}</b> · reflector {label(i.reflectorId)} <DemoBadge demo={i.demo} />
             <p className="gm-lb-meta">{checklistSummary(i.checklist, CHECKLIST_LABELS)}</p>
           </Link>
         </li>

@@ -1,12 +1,13 @@
 /** Passes across the planning window: days across, ascending ▲ and descending ▼ on their own labelled rows. */
 import { fmtNum } from '../../format.ts';
 import { formatUtc } from './computePasses.ts';
-import { TIMELINE_AXIS_Y, timelineLayout, trianglePoints, type TimelineInput } from './plotLayout.ts';
+import { fmtSiteTime } from '../../siteTime.ts';
+import { nowAnchor, TIMELINE_AXIS_Y, timelineLayout, trianglePoints, type TimelineInput } from './plotLayout.ts';
 
 const MARK_PX = 7;
 
-export function PassTimeline(props: { passes: readonly TimelineInput[]; startMs: number; days: number; nowMs: number }) {
-  const l = timelineLayout(props.passes, props.startMs, props.days);
+export function PassTimeline(props: { passes: readonly TimelineInput[]; startMs: number; days: number; nowMs: number; zone: string | null }) {
+  const l = timelineLayout(props.passes, props.startMs, props.days, undefined, props.zone);
   const nowX = l.plotLeft + ((props.nowMs - props.startMs) / (props.days * 86_400_000)) * (l.plotRight - l.plotLeft);
   const asc = l.marks.filter((m) => m.direction === 'ascending').length;
   const desc = l.marks.length - asc;
@@ -41,14 +42,14 @@ export function PassTimeline(props: { passes: readonly TimelineInput[]; startMs:
         {nowX >= l.plotLeft && nowX <= l.plotRight ? (
           <g>
             <line x1={nowX} x2={nowX} y1={10} y2={TIMELINE_AXIS_Y} stroke="currentColor" strokeWidth="2" strokeDasharray="3 2" />
-            <text x={nowX} y={9} fontSize="10" textAnchor="middle" fill="currentColor">
+            <text x={nowX} y={9} fontSize="10" textAnchor={nowAnchor(nowX, l.plotLeft, l.plotRight)} fill="currentColor" data-testid="timeline-now">
               now
             </text>
           </g>
         ) : null}
         {l.marks.map((m, i) => (
           <g key={i} data-testid={`timeline-mark-${i}`} data-direction={m.direction}>
-            <title>{`${m.satellite} ${m.direction} ${formatUtc(m.timeMs)}, incidence ${fmtNum(m.incidenceDeg, 1)}°`}</title>
+            <title>{`${m.satellite} ${m.direction} ${formatUtc(m.timeMs)}${props.zone ? ` (${fmtSiteTime(m.timeMs, props.zone)})` : ''}, incidence ${fmtNum(m.incidenceDeg, 1)}°`}</title>
             <polygon points={trianglePoints(m.x, m.y, MARK_PX, m.shape)} fill={m.shape === 'up' ? 'currentColor' : 'var(--gm-bg, #fff)'} stroke="currentColor" strokeWidth="2" />
             <text x={m.x} y={m.shape === 'up' ? m.y - MARK_PX - 3 : m.y + MARK_PX + 11} fontSize="10" fontWeight="700" textAnchor="middle" fill="currentColor">
               {m.letter}
@@ -56,7 +57,7 @@ export function PassTimeline(props: { passes: readonly TimelineInput[]; startMs:
           </g>
         ))}
       </svg>
-      <figcaption className="gm-note">Days in UTC. ▲ A = ascending (northbound), ▼ D = descending (southbound).</figcaption>
+      <figcaption className="gm-note" data-testid="timeline-caption">{props.zone ? `Days of the site’s calendar (${props.zone}).` : 'Days in UTC.'} ▲ A = ascending (northbound), ▼ D = descending (southbound).</figcaption>
     </figure>
   );
 }

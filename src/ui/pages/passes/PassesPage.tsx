@@ -2,6 +2,8 @@ import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/rea
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useHistory } from 'react-router-dom';
 import { NumberField, Segmented } from '../../components/fields.tsx';
+import { fmtDeg } from '../../format.ts';
+import { parseSiteLocalMs, siteMinuteText, siteTimeZone } from '../../siteTime.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow, type GeometryInput } from '../../state/workflow.ts';
 import { CircularPanel } from './CircularPanel.tsx';
@@ -47,11 +49,34 @@ export function PassesPage() {
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
 
   useEffect(() => {
-    listElementSets().then(setSets, (e: unknown) => setLoadError(`Stored element sets could not be read: ${e instanceof Error ? e.message : String(e)}`));
+    listElementSets().then((list) => {
+      if (!setsKnown.current && list.length > 0) setElementsOpen(false);
+      setsKnown.current = true;
+      setSets(list);
+    }, (e: unknown) => setLoadError(`Stored element sets could not be read: ${e instanceof Error ? e.message : String(e)}`));
   }, []);
 
-  const win = parseWindowForm(form);
   const site = wf.site;
+  // The site and element panels fold away when they are already set as the screen opens (the tracks come first);
+  // set during this visit, they stay open to show what was set. The crew can open or close either at any time.
+  const [siteOpen] = useState(() => workflow.get().site === null);
+  const [elementsOpen, setElementsOpen] = useState(true);
+  const setsKnown = useRef(false);
+  const zone = site ? siteTimeZone(site.latDeg, site.lonDeg) : null;
+  // The start may be typed in the site's own time: it is turned into UTC before the window is checked.
+  const [startIn, setStartIn] = useState<'utc' | 'site'>('utc');
+  const [startSite, setStartSite] = useState<string | null>(null);
+  let startSiteError: string | undefined;
+  let startUtc = form.startUtc;
+  if (startIn === 'site' && zone && startSite !== null) {
+    try {
+      startUtc = utcMinuteText(parseSiteLocalMs(startSite, zone));
+    } catch (e) {
+      startSiteError = e instanceof Error ? e.message : String(e);
+    }
+  }
+  const win0 = parseWindowForm({ ...form, startUtc });
+  const win = startSiteError ? { errors: { ...win0.errors, startUtc: startSiteError }, query: null } : win0;
   const key = JSON.stringify([win.query, site && [site.latDeg, site.lonDeg, site.heightEllM], sets.map((s) => s.line1 + s.line2)]);
   const ready = win.query !== null && site !== null && sets.length > 0;
 
@@ -113,19 +138,78 @@ export function PassesPage() {
       <IonContent className="ion-padding">
         <main className="gm-passes">
           <h1 className="gm-label">Upcoming radar passes</h1>
-          <SitePanel site={wf.site} />
+          {computed ? (
+            <section className="gm-section" aria-labelledby="tracks-h" aria-busy={computing}>
+              <h2 id="tracks-h" data-testid="tracks-h">Tracks</h2>
+              {computed.outcome.errors.map((e, i) => (
+                <p key={`e${i}`} className="gm-error" role="alert" data-testid={`passes-error-${i}`}>
+                  {e}
+                </p>
+              ))}
+              {computed.outcome.warnings.map((w, i) => (
+                <p key={`w${i}`} className="gm-warn" data-testid={`passes-warning-${i}`}>
+                  Warning: {w}
+                </p>
+              ))}
+              <NextPassCountdown passes={computed.outcome.passes} nowMs={nowMs} zone={zone} />
+              {notice ? (
+                <p className="gm-okt" role="status" data-testid="plan-notice">
+                  {notice}{' '}
+                  <button type="button" className="gm-btn" onClick={() => history.push('/plan')}>
+                    Go to Plan
+                  </button>
+                </p>
+              ) : null}
+              <TrackList tracks={tracks} lossesDb={losses} nowMs={nowMs} zone={zone} onAim={aim} onAdd={add} />
+            </section>
+          ) : null}
+          <details className="gm-fold" open={siteOpen} data-testid="site-fold">
+            <summary data-testid="site-fold-summary">
+              Site: {site ? `${site.code ? site.code + ' ' : ''}${fmtDeg(site.latDeg, 4)}, ${fmtDeg(site.lonDeg, 4)}${zone ? ` · ${zone}` : ''}` : 'not set'}
+            </summary>
+            <SitePanel site={wf.site} />
+          </details>
           {loadError ? <p className="gm-error" role="alert">{loadError}</p> : null}
-          <ElementsPanel sets={sets} onChange={setSets} query={win.query} nowMs={nowMs} />
-
+          <details className="gm-fold" open={elementsOpen} data-testid="elements-fold">
+            <summary data-testid="elements-fold-summary">
+              Orbital elements: {sets.length === 0 ? 'none yet' : `${sets.length} set${sets.length === 1 ? '' : 's'} (${sets.map((x) => x.name || x.catalogNumber).join(', ')})`}
+            </summary>
+            <ElementsPanel sets={sets} onChange={setSets} query={win.query} nowMs={nowMs} />
+          </details>
           <section className="gm-section" aria-labelledby="window-h">
             <h2 id="window-h">Window</h2>
             <div className="gm-row">
               <div className="gm-wide gm-start-row">
-                <NumberField label="Start" unit="UTC" value={form.startUtc} onChange={(v) => setForm({ ...form, startUtc: v })} error={win.errors.startUtc} testId="window-start" hint="e.g. 2026-12-01T06:00Z" />
-                <button type="button" className="gm-btn" onClick={() => setForm({ ...form, startUtc: utcMinuteText(Date.now()) })} data-testid="window-now">
+                {startIn === 'site' && zone ? (
+                  <NumberField label="Start" unit={`site time, ${zone}`} value={startSite ?? ''} onChange={setStartSite} error={win.errors.startUtc} testId="window-start-site" hint="e.g. 2026-12-01T06:00 (the site’s wall clock)" />
+                ) : (
+                  <NumberField label="Start" unit="UTC" value={form.startUtc} onChange={(v) => setForm({ ...form, startUtc: v })} error={win.errors.startUtc} testId="window-start" hint="e.g. 2026-12-01T06:00Z" />
+                )}
+                <button
+                  type="button"
+                  className="gm-btn"
+                  onClick={() => {
+                    setForm({ ...form, startUtc: utcMinuteText(Date.now()) });
+                    setStartSite(zone ? siteMinuteText(Date.now(), zone) : null);
+                  }}
+                  data-testid="window-now"
+                >
                   Now
                 </button>
               </div>
+              {zone ? (
+                <Segmented
+                  label="Start typed in"
+                  value={startIn}
+                  options={[{ value: 'utc', label: 'UTC' }, { value: 'site', label: `Site time` }]}
+                  onChange={(v) => {
+                    if (v === 'utc' && win.query) setForm({ ...form, startUtc: utcMinuteText(win.query.startMs) });
+                    setStartSite(v === 'site' ? siteMinuteText(win.query?.startMs ?? Date.now(), zone) : null);
+                    setStartIn(v);
+                  }}
+                  testId="window-start-in"
+                />
+              ) : null}
               <NumberField label="Days" value={form.days} onChange={(v) => setForm({ ...form, days: v })} error={win.errors.days} testId="window-days" />
               <NumberField label="Smallest incidence" unit="°" value={form.incidenceMinDeg} onChange={(v) => setForm({ ...form, incidenceMinDeg: v })} error={win.errors.incidenceMinDeg} testId="window-inc-min" />
               <NumberField label="Largest incidence" unit="°" value={form.incidenceMaxDeg} onChange={(v) => setForm({ ...form, incidenceMaxDeg: v })} error={win.errors.incidenceMaxDeg} testId="window-inc-max" />
@@ -152,30 +236,9 @@ export function PassesPage() {
           </section>
 
           {computed ? (
-            <section className="gm-section" aria-labelledby="tracks-h" aria-busy={computing}>
-              <h2 id="tracks-h" data-testid="tracks-h">Tracks</h2>
-              {computed.outcome.errors.map((e, i) => (
-                <p key={`e${i}`} className="gm-error" role="alert" data-testid={`passes-error-${i}`}>
-                  {e}
-                </p>
-              ))}
-              {computed.outcome.warnings.map((w, i) => (
-                <p key={`w${i}`} className="gm-warn" data-testid={`passes-warning-${i}`}>
-                  Warning: {w}
-                </p>
-              ))}
-              <NextPassCountdown passes={computed.outcome.passes} nowMs={nowMs} />
-              {notice ? (
-                <p className="gm-okt" role="status" data-testid="plan-notice">
-                  {notice}{' '}
-                  <button type="button" className="gm-btn" onClick={() => history.push('/plan')}>
-                    Go to Plan
-                  </button>
-                </p>
-              ) : null}
-              <TrackList tracks={tracks} lossesDb={losses} nowMs={nowMs} onAim={aim} onAdd={add} />
+            <section className="gm-section" aria-label="Timeline and sky plot">
               <h2>Timeline</h2>
-              <PassTimeline passes={computed.outcome.passes} startMs={computed.startMs} days={computed.days} nowMs={nowMs} />
+              <PassTimeline passes={computed.outcome.passes} startMs={computed.startMs} days={computed.days} nowMs={nowMs} zone={zone} />
               <h2>Sky plot</h2>
               <SkyPlot tracks={tracks} lossesDb={losses} target={wf.target} shape={wf.shape} />
             </section>

@@ -6,15 +6,16 @@ import { useId } from 'react';
 import type { ReflectorOrientation } from '../../../core/geometry/orientation.ts';
 import type { TrihedralShapeName } from '../../../core/radar/shapes.ts';
 import { beamwidth3dB } from '../../../core/reflector/beamwidth.ts';
-import { toRad } from '../../../core/units.ts';
 import { fmtNum } from '../../format.ts';
 import type { DisplayTrack } from './computePasses.ts';
-import { beamOutline, boresightDirection, skyPoint, trackDirection, trianglePoints } from './plotLayout.ts';
+import { beamOutline, boresightDirection, placeLabels, skyPoint, trackDirection, trianglePoints } from './plotLayout.ts';
 
 const SIZE = 320;
 const FRAME = { cx: SIZE / 2, cy: SIZE / 2, radiusPx: 130 };
 const MARK_PX = 6;
-const LABEL_OFFSET_PX = 10;
+/** Room for one "T12" label at 12 px bold type, px. */
+const LABEL_W_PX = 26;
+const LABEL_H_PX = 14;
 const CARDINALS = [
   { label: 'N', az: 0 },
   { label: 'E', az: 90 },
@@ -34,6 +35,8 @@ export function SkyPlot(props: { tracks: readonly DisplayTrack[]; lossesDb: read
       beam = null;
     }
   }
+  const points = props.tracks.map((t) => skyPoint(trackDirection(t), FRAME));
+  const labels = placeLabels(points, LABEL_W_PX, LABEL_H_PX, MARK_PX);
   const trackText = props.tracks.map((t) => `T${t.index + 1} ${t.direction} azimuth ${fmtNum(t.reflectorAzimuthDeg, 1)}°, elevation ${fmtNum(90 - t.incidenceDeg, 1)}°`).join('; ');
   return (
     <figure style={{ margin: 0 }}>
@@ -67,18 +70,15 @@ export function SkyPlot(props: { tracks: readonly DisplayTrack[]; lossesDb: read
             <path d={`M${beam.bore.x - 8},${beam.bore.y}h16M${beam.bore.x},${beam.bore.y - 8}v16`} stroke="currentColor" strokeWidth="3" />
           </g>
         ) : null}
-        {props.tracks.map((t) => {
-          const p = skyPoint(trackDirection(t), FRAME);
+        {props.tracks.map((t, i) => {
+          const p = points[i];
           const shape = t.direction === 'ascending' ? 'up' : 'down';
-          // Tracks of one direction line up along a radius: put labels across it, alternating sides.
-          const a = toRad(t.reflectorAzimuthDeg);
-          const side = t.index % 2 === 0 ? 1 : -1;
-          const lx = p.x + side * LABEL_OFFSET_PX * Math.cos(a);
-          const ly = p.y + side * LABEL_OFFSET_PX * Math.sin(a);
+          // Labels are placed so that none overlaps another label or a mark (placeLabels).
+          const b = labels[i];
           return (
             <g key={t.index} data-testid={`sky-track-${t.index}`}>
               <polygon points={trianglePoints(p.x, p.y, MARK_PX, shape)} fill={shape === 'up' ? 'currentColor' : 'var(--gm-bg, #fff)'} stroke="currentColor" strokeWidth="2" />
-              <text x={lx} y={ly + 4} fontSize="12" fontWeight="700" textAnchor={lx >= p.x ? 'start' : 'end'} fill="currentColor">
+              <text x={b.x + b.w / 2} y={b.y + b.h - 2} fontSize="12" fontWeight="700" textAnchor="middle" fill="currentColor" data-testid={`sky-label-${t.index}`}>
                 T{t.index + 1}
               </text>
             </g>
@@ -86,7 +86,7 @@ export function SkyPlot(props: { tracks: readonly DisplayTrack[]; lossesDb: read
         })}
       </svg>
       <figcaption className="gm-note">
-        Looking up: north at the top, east to the right, horizon on the rim, zenith in the centre. ▲ ascending, ▼ descending; T1… as in the list.{' '}
+        Drawn as seen from above, like a map: north at the top, east to the right, horizon on the rim, zenith in the centre. ▲ ascending, ▼ descending; T1… as in the list.{' '}
         {beam
           ? `Dashed outline: the reflector’s −3 dB beam at the current aim (APPROXIMATE: an ellipse through the two measured cuts), + its boresight (${beam.boreText}).`
           : 'No reflector aim yet: aim on the Plan screen to see the beam here.'}

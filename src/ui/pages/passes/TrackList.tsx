@@ -1,13 +1,16 @@
 /** Upcoming tracks: one card each, with the aim it needs and buttons to hand it to the Plan screen. */
 import type { Pass } from '../../../core/orbit/passes.ts';
 import { fmtNum } from '../../format.ts';
+import { fmtSiteTime } from '../../siteTime.ts';
 import { formatCountdown, formatDays, formatUtc, nextPassAfter, trackNextAfterMs, type DisplayTrack } from './computePasses.ts';
 
-const localTime = (ms: number) => new Date(ms).toLocaleString(undefined, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit', second: '2-digit' });
 
 const ARROW = { ascending: '▲', descending: '▼' } as const;
 
-export function NextPassCountdown(props: { passes: readonly Pass[]; nowMs: number }) {
+/** The pass time in the site's zone, named; nothing when the zone is unknown (UTC is shown beside it anyway). */
+const siteTime = (ms: number, zone: string | null) => (zone ? fmtSiteTime(ms, zone, { seconds: true }) + ' site time' : 'site time zone unknown');
+
+export function NextPassCountdown(props: { passes: readonly Pass[]; nowMs: number; zone: string | null }) {
   const next = nextPassAfter(props.passes, props.nowMs);
   return (
     <div className="gm-card" aria-live="off">
@@ -18,7 +21,7 @@ export function NextPassCountdown(props: { passes: readonly Pass[]; nowMs: numbe
             {formatCountdown(next.timeMs - props.nowMs)}
           </div>
           <div className="gm-note">
-            {next.satellite} {ARROW[next.direction]} {next.direction}, incidence {fmtNum(next.incidenceDeg, 1)}° — {formatUtc(next.timeMs)} ({localTime(next.timeMs)} local)
+            {next.satellite} {ARROW[next.direction]} {next.direction}, incidence {fmtNum(next.incidenceDeg, 1)}° — {formatUtc(next.timeMs)} · <span data-testid="next-pass-site-time">{siteTime(next.timeMs, props.zone)}</span>
           </div>
         </>
       ) : (
@@ -34,6 +37,7 @@ export function TrackList(props: {
   tracks: readonly DisplayTrack[];
   lossesDb: readonly (number | null)[];
   nowMs: number;
+  zone: string | null;
   onAim: (t: DisplayTrack) => void;
   onAdd: (t: DisplayTrack) => void;
 }) {
@@ -80,7 +84,7 @@ export function TrackList(props: {
                 <dd data-testid={`track-next-${i}`}>
                   {formatUtc(upcomingMs ?? lastMs)}
                   <br />
-                  {localTime(upcomingMs ?? lastMs)} local
+                  {siteTime(upcomingMs ?? lastMs, props.zone)}
                 </dd>
               </div>
               {loss !== null && loss !== undefined ? (

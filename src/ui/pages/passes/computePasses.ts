@@ -13,7 +13,7 @@ import type { TrihedralShapeName } from '../../../core/radar/shapes.ts';
 import { misalignment } from '../../../core/reflector/misalignment.ts';
 import { requireIncidenceDeg, requireInRange, requireLatDeg, requireLonDeg } from '../../../core/validate.ts';
 import { parseField } from '../../components/fields.tsx';
-import { DEFAULT_WORKFLOW, type GeometryInput } from '../../state/workflow.ts';
+import { isLegacyExample, type GeometryInput } from '../../state/workflow.ts';
 import type { StoredElementSet } from './elementsStore.ts';
 
 export const MS_PER_DAY = 86_400_000;
@@ -181,9 +181,7 @@ export function geometryFromTrack(t: DisplayTrack): GeometryInput {
 export function appendGeometry(list: readonly GeometryInput[], g: GeometryInput): GeometryInput[] {
   const same = (a: GeometryInput) =>
     a.source === g.source && a.satellite === g.satellite && a.direction === g.direction && a.look === g.look && a.incidenceDeg === g.incidenceDeg && a.headingDeg === g.headingDeg;
-  const placeholder = DEFAULT_WORKFLOW.geometries[0];
-  const isPlaceholder = (a: GeometryInput) =>
-    a.source === 'typed' && a.label === undefined && a.incidenceDeg === placeholder.incidenceDeg && a.headingDeg === placeholder.headingDeg && a.look === placeholder.look;
+  const isPlaceholder = (a: GeometryInput) => (a.incidenceDeg.trim() === '' && a.headingDeg.trim() === '') || isLegacyExample(a);
   const kept = list.filter((a) => !isPlaceholder(a));
   return kept.some(same) ? kept : [...kept, g];
 }

@@ -11,6 +11,7 @@ import type { PassDirection } from '../../../core/orbit/passes.ts';
 import type { Beamwidth3dB } from '../../../core/reflector/beamwidth.ts';
 import { toRad } from '../../../core/units.ts';
 import type { Vec3 } from '../../../core/vec3.ts';
+import { parseSiteLocalMs, siteDay } from '../../siteTime.ts';
 import { MS_PER_DAY } from './computePasses.ts';
 
 export interface AzEl {
@@ -115,7 +116,7 @@ export const TIMELINE_AXIS_Y = 90;
  * UTC midnight and a label ("3 Dec", UTC) on every n-th tick, n chosen so labels are TIMELINE_LABEL_PX apart or more.
  * Passes outside the window are left out.
  */
-export function timelineLayout(passes: readonly TimelineInput[], startMs: number, days: number, size = { width: 360, height: 120 }): TimelineLayout {
+export function timelineLayout(passes: readonly TimelineInput[], startMs: number, days: number, size = { width: 360, height: 120 }, zone: string | null = null): TimelineLayout {
   const plotLeft = 96, plotRight = size.width - 10;
   const endMs = startMs + days * MS_PER_DAY;
   const x = (t: number) => plotLeft + ((t - startMs) / (endMs - startMs)) * (plotRight - plotLeft);
@@ -126,10 +127,21 @@ export function timelineLayout(passes: readonly TimelineInput[], startMs: number
   const pxPerDay = (plotRight - plotLeft) / days;
   const every = Math.max(1, Math.ceil(TIMELINE_LABEL_PX / pxPerDay));
   const ticks: TimelineTick[] = [];
-  const firstMidnight = Math.ceil(startMs / MS_PER_DAY) * MS_PER_DAY;
-  for (let t = firstMidnight, i = 0; t <= endMs; t += MS_PER_DAY, i++) {
-    const d = new Date(t);
-    ticks.push({ x: x(t), label: i % every === 0 ? `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]}` : '' });
+  if (zone) {
+    // Midnights of the site's own days (a day may be 23 or 25 hours long across a clock change).
+    const [y, m, d] = siteDay(startMs, zone).split('-').map(Number);
+    for (let i = 0, n = 0; i <= days + 1; i++) {
+      const day = new Date(Date.UTC(y, m - 1, d + i));
+      const t = parseSiteLocalMs(day.toISOString().slice(0, 10) + 'T00:00', zone);
+      if (t < startMs || t > endMs) continue;
+      ticks.push({ x: x(t), label: n++ % every === 0 ? `${day.getUTCDate()} ${MONTHS[day.getUTCMonth()]}` : '' });
+    }
+  } else {
+    const firstMidnight = Math.ceil(startMs / MS_PER_DAY) * MS_PER_DAY;
+    for (let t = firstMidnight, i = 0; t <= endMs; t += MS_PER_DAY, i++) {
+      const dd = new Date(t);
+      ticks.push({ x: x(t), label: i % every === 0 ? `${dd.getUTCDate()} ${MONTHS[dd.getUTCMonth()]}` : '' });
+    }
   }
   const marks: TimelineMark[] = passes
     .filter((p) => p.timeMs >= startMs && p.timeMs < endMs)
@@ -141,6 +153,53 @@ export function timelineLayout(passes: readonly TimelineInput[], startMs: number
       letter: p.direction === 'ascending' ? 'A' : 'D',
     }));
   return { width: size.width, height: size.height, plotLeft, plotRight, rows, ticks, marks };
+}
+
+/** The "now" mark's text anchor, so that its label stays inside the plot near either end. */
+export function nowAnchor(x: number, plotLeft: number, plotRight: number, halfWidthPx = 12): 'start' | 'middle' | 'end' {
+  if (x - halfWidthPx < plotLeft) return 'start';
+  if (x + halfWidthPx > plotRight) return 'end';
+  return 'middle';
+}
+
+export interface LabelBox {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
+const overlaps = (a: LabelBox, b: LabelBox) => a.x < b.x + b.w && b.x < a.x + a.w && a.y < b.y + b.h && b.y < a.y + a.h;
+
+/**
+ * Places a label of size w × h by each point so that no two labels overlap and no label covers a mark (a square of
+ * half-size markPx): the first free spot among 8 directions at growing distances. Returns each label's box
+ * (top-left corner); a label that finds no free spot within the tries goes furthest out, below the rest.
+ */
+export function placeLabels(points: readonly { x: number; y: number }[], w: number, h: number, markPx: number): LabelBox[] {
+  const marks = points.map((p) => ({ x: p.x - markPx, y: p.y - markPx, w: 2 * markPx, h: 2 * markPx }));
+  const placed: LabelBox[] = [];
+  const dirs = [0, 1, 2, 3, 4, 5, 6, 7].map((k) => [Math.cos((k * Math.PI) / 4), Math.sin((k * Math.PI) / 4)]);
+  points.forEach((p) => {
+    let box: LabelBox | null = null;
+    for (let ring = 1; ring <= 6 && !box; ring++) {
+      const r = markPx + 2 + (ring - 1) * h;
+      for (const [dx, dy] of dirs) {
+        const cx = p.x + dx * (r + w / 2), cy = p.y + dy * (r + h / 2);
+        const b = { x: cx - w / 2, y: cy - h / 2, w, h };
+        if (!placed.some((o) => overlaps(o, b)) && !marks.some((m) => overlaps(m, b))) {
+          box = b;
+          break;
+        }
+      }
+    }
+    if (!box) {
+      const lowest = placed.reduce((m, o) => Math.max(m, o.y + o.h), p.y);
+      box = { x: p.x - w / 2, y: lowest + 1, w, h };
+    }
+    placed.push(box);
+  });
+  return placed;
 }
 
 /** SVG points of a triangle of half-size `s` centred on (x, y), pointing up or down. */

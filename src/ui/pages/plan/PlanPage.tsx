@@ -1,6 +1,7 @@
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
-import { useMemo, useState } from 'react';
-import { useHistory } from 'react-router-dom';
+import { useEffect, useMemo, useState } from 'react';
+import { Link, useHistory } from 'react-router-dom';
+import { geometryRepo, reflectorRepo, useGlintmarkDb, useReflectors } from '../../../data/index.ts';
 import { BAND_PRESETS } from '../../../core/radar/bands.ts';
 import { BigNumber, NumberField, Segmented, SelectField } from '../../components/fields.tsx';
 import { RcsPatternPlot } from '../../components/RcsPatternPlot.tsx';
@@ -9,6 +10,7 @@ import { useStore } from '../../state/store.ts';
 import { settings } from '../../state/settings.ts';
 import { workflow, type GeometryInput } from '../../state/workflow.ts';
 import { computePlan } from './computePlan.ts';
+import { pickPlanReflector, scrVerdict } from './planReflector.ts';
 import { fmtDeg, fmtNum } from '../../format.ts';
 
 const BAND_OPTIONS = [
@@ -30,6 +32,37 @@ export function PlanPage() {
     () => computePlan({ geometries: wf.geometries, shape: wf.shape, edgeM: wf.edgeM, band: wf.band, frequencyGhz, clutterDb, rangeResolutionM, azimuthResolutionM, targetScrDb }),
     [wf.geometries, wf.shape, wf.edgeM, wf.band, frequencyGhz, clutterDb, rangeResolutionM, azimuthResolutionM, targetScrDb],
   );
+
+  // The chosen site's reflector: its shape and edge, picked once per site (a typed shape or edge then stays).
+  const siteId = wf.site?.id ?? '';
+  const reflectors = useReflectors(siteId);
+  const liveReflectors = useMemo(() => (reflectors ?? []).filter((r) => r.deletedAtMs === null && r.siteId === siteId), [reflectors, siteId]);
+  const pickedFor = wf.planReflector?.siteId;
+  const db = useGlintmarkDb();
+  useEffect(() => {
+    if (!siteId || pickedFor === siteId) return;
+    let live = true;
+    // Read both lists for this site at once (a live query may still hold the previous site's rows for a moment).
+    void Promise.all([reflectorRepo.list(db, { siteId }), geometryRepo.list(db, { siteId })])
+      .then(([rs, gs]) => {
+        if (!live || workflow.get().site?.id !== siteId || workflow.get().planReflector?.siteId === siteId) return;
+        const r = rs.find((x) => x.id === pickPlanReflector(rs, gs, workflow.get().geometries));
+        if (r) workflow.set({ planReflector: { siteId, id: r.id, label: r.label }, shape: r.shape, edgeM: String(r.edgeM) });
+      })
+      .catch(() => undefined); // the picker below still lists the reflectors; the crew chooses one by hand
+    return () => {
+      live = false;
+    };
+  }, [db, siteId, pickedFor, reflectors]);
+  const chooseReflector = (id: string) => {
+    const r = liveReflectors.find((x) => x.id === id);
+    workflow.set(r ? { planReflector: { siteId, id: r.id, label: r.label }, shape: r.shape, edgeM: String(r.edgeM) } : { planReflector: { siteId, id: null, label: null } });
+  };
+  const typedReflector = (patch: { shape?: typeof wf.shape; edgeM?: string }) =>
+    workflow.set({ ...patch, ...(siteId ? { planReflector: { siteId, id: null, label: null } } : { planReflector: undefined }) });
+  const planReflector = wf.planReflector && wf.planReflector.siteId === siteId && wf.planReflector.id ? wf.planReflector : null;
+  const targetScr = Number(targetScrDb);
+  const verdict = scrVerdict(plan.scrDb, targetScrDb.trim() !== '' && Number.isFinite(targetScr) ? targetScr : null, plan.edgeForTargetM);
 
   const setGeometry = (i: number, patch: Partial<GeometryInput>) =>
     workflow.set((s) => ({
@@ -65,12 +98,27 @@ export function PlanPage() {
               Site {wf.site.code ?? ''} {fmtDeg(wf.site.latDeg, 5, units.angleFormat)}, {fmtDeg(wf.site.lonDeg, 5, units.angleFormat)}
             </p>
           ) : null}
+          {plan.empty ? (
+            <section className="gm-card gm-plan-empty" data-testid="plan-empty" aria-labelledby="empty-h">
+              <h2 id="empty-h">No aim yet</h2>
+              <p>Nothing to align to until the pass is known. First:</p>
+              <ol>
+                <li>
+                  Choose the site: open it in the <Link className="gm-link" to="/logbook">Logbook</Link> and tap “Use this site → Plan”, or set it on{' '}
+                  <Link className="gm-link" to="/passes">Passes</Link> (GPS or typed coordinates).
+                </li>
+                <li>Then pick its pass on Passes (“Aim for this track”), or type the pass geometry below: incidence and heading from the mission’s data.</li>
+              </ol>
+            </section>
+          ) : null}
+          {plan.empty ? null : (
           <section className="gm-cards" aria-label="Aim">
             <BigNumber label="Reflector azimuth (true)" value={t ? fmtNum(t.azimuthDeg, 1) : '—'} unit="°" testId="result-azimuth" />
             <BigNumber label="Base tilt (open side up +)" value={t ? fmtNum(t.tiltDeg, 1) : '—'} unit="°" testId="result-tilt" />
             {t && Math.abs(t.rollDeg) > 0.05 ? <BigNumber label="Roll (right side up +)" value={fmtNum(t.rollDeg, 1)} unit="°" testId="result-roll" /> : null}
-            <BigNumber label="Peak RCS" value={plan.peakRcsDbsm !== null ? fmtNum(plan.peakRcsDbsm, 1) : '—'} unit=" dBsm" testId="result-peak" sub={plan.peakRcsM2 !== null ? `${fmtNum(plan.peakRcsM2, 0)} m²` : undefined} />
+            <BigNumber label="Peak RCS" value={plan.peakRcsDbsm !== null ? fmtNum(plan.peakRcsDbsm, 1) : '—'} unit="dBsm" testId="result-peak" sub={plan.peakRcsM2 !== null ? `${fmtNum(plan.peakRcsM2, 0)} m²` : undefined} />
           </section>
+          )}
           {plan.geometries.length > 1 && plan.worstLossDb !== null ? (
             <p className={plan.separateRecommended ? 'gm-warn' : 'gm-okt'} data-testid="compromise-message">
               {plan.compromiseMessage} Worst loss {fmtNum(plan.worstLossDb, 1)} dB.
@@ -80,9 +128,11 @@ export function PlanPage() {
             3 dB beamwidth: {fmtNum(plan.beamwidth.elevationFullDeg, 1)}° in elevation, {fmtNum(plan.beamwidth.azimuthFullDeg, 1)}° in azimuth.
             {plan.boresightElevationDeg !== null ? ` Boresight elevation ${fmtNum(plan.boresightElevationDeg, 2)}°.` : ''}
           </p>
-          <button type="button" className="gm-btn gm-primary" disabled={!t} onClick={goAlign} data-testid="go-align">
-            Align to this aim
-          </button>
+          {plan.empty ? null : (
+            <button type="button" className="gm-btn gm-primary" disabled={!t} onClick={goAlign} data-testid="go-align">
+              Align to this aim
+            </button>
+          )}
 
           <section className="gm-section" aria-labelledby="geo-h">
             <h2 id="geo-h">Pass geometry</h2>
@@ -92,8 +142,8 @@ export function PlanPage() {
                 <div key={i} className="gm-card" style={{ marginBottom: 8 }} data-testid={`geometry-${i}`}>
                   {g.label ? <p className="gm-note">{g.label}</p> : null}
                   <div className="gm-row">
-                    <NumberField label="Incidence" unit="°" value={g.incidenceDeg} onChange={(v) => setGeometry(i, { incidenceDeg: v })} error={r.errors.incidenceDeg} testId={`incidence-${i}`} />
-                    <NumberField label="Heading" unit="° true" value={g.headingDeg} onChange={(v) => setGeometry(i, { headingDeg: v })} error={r.errors.headingDeg} testId={`heading-${i}`} />
+                    <NumberField label="Incidence" unit="°" placeholder="e.g. 37" value={g.incidenceDeg} onChange={(v) => setGeometry(i, { incidenceDeg: v })} error={r.errors.incidenceDeg} testId={`incidence-${i}`} />
+                    <NumberField label="Heading" unit="° true" placeholder="e.g. 190" value={g.headingDeg} onChange={(v) => setGeometry(i, { headingDeg: v })} error={r.errors.headingDeg} testId={`heading-${i}`} />
                     <Segmented label="Look side" value={g.look} options={[{ value: 'right', label: 'Right' }, { value: 'left', label: 'Left' }]} onChange={(v) => setGeometry(i, { look: v })} testId={`look-${i}`} />
                   </div>
                   {r.lossDb !== null ? (
@@ -116,9 +166,27 @@ export function PlanPage() {
 
           <section className="gm-section" aria-labelledby="refl-h">
             <h2 id="refl-h">Reflector</h2>
+            {liveReflectors.length ? (
+              <SelectField
+                label={`Reflector of site ${wf.site?.code ?? ''}`}
+                value={planReflector?.id ?? ''}
+                options={[...liveReflectors.map((r) => ({ value: r.id, label: `${r.label}: ${r.shape}, ${fmtNum(r.edgeM, 2)} m${r.demo ? ' (DEMO)' : ''}` })), { value: '', label: 'Other: type the shape and edge' }]}
+                onChange={chooseReflector}
+                testId="plan-reflector"
+              />
+            ) : null}
+            <p className="gm-note" data-testid="plan-reflector-note">
+              {planReflector
+                ? `Shape and edge of reflector ${planReflector.label ?? ''} from the logbook.`
+                : wf.site?.id
+                  ? liveReflectors.length
+                    ? 'Shape and edge typed here (not one of the site’s reflectors).'
+                    : 'This site has no reflector in the logbook yet: the shape and edge are typed here.'
+                  : 'No logbook site chosen: the shape and edge are typed here.'}
+            </p>
             <div className="gm-row">
-              <Segmented label="Shape" value={wf.shape} options={[{ value: 'triangular', label: 'Triangular' }, { value: 'square', label: 'Square' }]} onChange={(v) => workflow.set({ shape: v })} testId="shape" />
-              <NumberField label="Inner edge" unit="m" value={wf.edgeM} onChange={(v) => workflow.set({ edgeM: v })} error={plan.errors.edgeM} testId="edge" />
+              <Segmented label="Shape" value={wf.shape} options={[{ value: 'triangular', label: 'Triangular' }, { value: 'square', label: 'Square' }]} onChange={(v) => typedReflector({ shape: v })} testId="shape" />
+              <NumberField label="Inner edge" unit="m" value={wf.edgeM} onChange={(v) => typedReflector({ edgeM: v })} error={plan.errors.edgeM} testId="edge" />
               <SelectField label="Band" value={wf.band} options={BAND_OPTIONS} onChange={(v) => workflow.set({ band: v })} testId="band" />
               {wf.band === 'custom' ? <NumberField label="Frequency" unit="GHz" value={frequencyGhz} onChange={setFrequencyGhz} error={plan.errors.frequencyGhz} testId="frequency" /> : null}
             </div>
@@ -142,9 +210,16 @@ export function PlanPage() {
               <NumberField label="Target SCR" unit="dB" value={targetScrDb} onChange={setTargetScrDb} error={plan.errors.targetScrDb} testId="target-scr" />
             </div>
             <div className="gm-cards">
-              <BigNumber label="Signal-to-clutter" value={plan.scrDb !== null ? fmtNum(plan.scrDb, 1) : '—'} unit=" dB" testId="result-scr" tone={plan.scrDb === null ? undefined : plan.scrDb >= 20 ? 'ok' : plan.scrDb < 10 ? 'bad' : undefined} />
-              <BigNumber label="LOS precision" value={plan.losStdMm !== null ? fmtNum(plan.losStdMm, 2) : '—'} unit=" mm" testId="result-precision" sub={`one image, lower bound (clutter only); difference of two images ${plan.losStdDiffMm !== null ? fmtNum(plan.losStdDiffMm, 2) : '—'} mm (√2 larger)`} />
-              <BigNumber label="Edge for target SCR" value={plan.edgeForTargetM !== null ? fmtNum(plan.edgeForTargetM, 2) : '—'} unit=" m" testId="result-edge-needed" />
+              <BigNumber
+                label="Signal-to-clutter"
+                value={plan.scrDb !== null ? fmtNum(plan.scrDb, 1) : '—'}
+                unit="dB"
+                testId="result-scr"
+                tone={verdict ? (verdict.ok ? 'ok' : 'bad') : undefined}
+                sub={verdict ? <span className={verdict.ok ? 'gm-okt' : 'gm-warn'} data-testid="scr-verdict">{verdict.ok ? '✔ ' : '✖ '}{verdict.text}</span> : undefined}
+              />
+              <BigNumber label="LOS precision" value={plan.losStdMm !== null ? fmtNum(plan.losStdMm, 2) : '—'} unit="mm" testId="result-precision" sub={`one image, lower bound (clutter only); difference of two images ${plan.losStdDiffMm !== null ? fmtNum(plan.losStdDiffMm, 2) : '—'} mm (√2 larger)`} />
+              <BigNumber label="Edge for target SCR" value={plan.edgeForTargetM !== null ? fmtNum(plan.edgeForTargetM, 2) : '—'} unit="m" testId="result-edge-needed" />
             </div>
             <p className="gm-note">
               Cell area {plan.cellAreaM2 !== null ? `${fmtNum(plan.cellAreaM2, 1)} m²` : '—'} (ground-projected at the steepest planned incidence).

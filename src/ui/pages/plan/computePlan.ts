@@ -38,7 +38,12 @@ export interface GeometryResult {
   azimuthOffsetDeg: number | null;
 }
 
+/** A geometry row with neither incidence nor heading typed. */
+export const isBlankGeometry = (g: Pick<GeometryInput, 'incidenceDeg' | 'headingDeg'>): boolean => g.incidenceDeg.trim() === '' && g.headingDeg.trim() === '';
+
 export interface PlanResult {
+  /** No geometry typed or chosen yet: no aim, and the screen shows what to do first. */
+  empty: boolean;
   geometries: GeometryResult[];
   errors: { edgeM?: string; frequencyGhz?: string; clutterDb?: string; rangeResolutionM?: string; azimuthResolutionM?: string; targetScrDb?: string };
   wavelengthM: number | null;
@@ -64,6 +69,8 @@ const nonNeg = (label: string, v: number) => requireInRange(label, v, { min: 0, 
 
 export function computePlan(f: PlanForm): PlanResult {
   const geometries: GeometryResult[] = f.geometries.map((g) => {
+    // A row not typed yet is no error, and no aim: the screen says what to do first.
+    if (isBlankGeometry(g)) return { errors: {}, geometry: null, lossDb: null, offBoresightDeg: null, elevationDeg: null, azimuthOffsetDeg: null };
     const inc = parseField('Incidence', g.incidenceDeg, requireIncidenceDeg);
     const hdg = parseField('Heading', g.headingDeg, (n, v) => requireInRange(n, v, { min: -360, max: 360, unit: '°' }));
     const ok = inc.value !== undefined && hdg.value !== undefined;
@@ -129,6 +136,7 @@ export function computePlan(f: PlanForm): PlanResult {
   const scr = worstRcsDbsm !== null && s0.value !== undefined && cellAreaM2 !== null ? scrDb(worstRcsDbsm, s0.value, cellAreaM2) : null;
   const phase = scr !== null ? phaseStdRad(scr) : null;
   return {
+    empty: f.geometries.every(isBlankGeometry),
     geometries,
     errors,
     wavelengthM,
