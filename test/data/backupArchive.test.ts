@@ -71,7 +71,7 @@ describe('backup archive', () => {
     expect(archive.size).toBeLessThan(6_000_000 + 20_000);
   });
 
-  it('restores into an empty database and merges into another: every row, history and photo byte', async () => {
+  it('restores into an empty database and merges into another: every row, history and photo byte', { timeout: 120_000 }, async () => {
     const { archive } = await seeded();
     const want = await records(db());
     for (const mode of ['restore', 'merge'] as const) {
@@ -100,7 +100,7 @@ describe('backup archive', () => {
     f['manifest.json'] = strToU8(JSON.stringify(m));
   };
 
-  it('refuses damaged archives with a plain sentence, and changes nothing on restore or merge', async () => {
+  it('refuses damaged archives with a plain sentence, and changes nothing on restore or merge', { timeout: 120_000 }, async () => {
     const { big, archive } = await seeded();
     const bytes = await bytesOf(archive);
     const photoPath = `photos/${sha(big)}.jpg`;
