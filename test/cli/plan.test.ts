@@ -16,7 +16,7 @@ const BASE = ['--shape', 'triangular', '--edge', '1.2', '--wavelength', '0.0555'
 
 describe('glintmark plan', () => {
   it('writes a CSV row per site and geometry with the aim and predicted RCS', async () => {
-    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', '--geometry', '35,350,right', ...BASE]);
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', '--geometry', '35,350,right', ...BASE, '--format', 'csv']);
     expect(r.code).toBe(0);
     const rows = parseCsv(r.stdout).map((x) => x.fields);
     expect(rows[0]).toContain('reflector_azimuth_deg');
@@ -57,12 +57,12 @@ describe('glintmark plan', () => {
   });
   it.each([
     ['missing column', 'code,latitude,longitude\nA,1,2\n', /line 1: missing column height_m/],
-    ['latitude out of range', 'code,latitude,longitude,height_m\nA,52,4,0\nB,95,4,0\n', /line 3: latitude 95 is out of range \[-90, 90\]°; nothing was written/],
-    ['not a number', 'code,latitude,longitude,height_m\nA,north,4,0\n', /line 2: latitude must be a number, got "north"/],
-    ['duplicate code', 'code,latitude,longitude,height_m\nA,1,4,0\nA,2,4,0\n', /line 3: site code "A" is already used on line 2/],
+    ['latitude out of range', 'code,latitude,longitude,height_m\nA,52,4,0\nB,95,4,0\n', /line 3: latitude must be in \[-90, 90\] degrees, got 95; nothing was written/],
+    ['not a number', 'code,latitude,longitude,height_m\nA,north,4,0\n', /line 2: latitude "north" is not a number/],
+    ['duplicate code', 'code,latitude,longitude,height_m\nA,1,4,0\nA,2,4,0\n', /line 3: code A repeats the code of line 2/],
     ['unclosed quote', 'code,latitude,longitude,height_m\n"A,1,4,0\n', /a quoted field is never closed/],
     ['empty', '', /is empty/],
-    ['several problems', 'code,latitude,longitude,height_m\n,1,4,0\nB,200,4,0\n', /line 2: the site code is empty \(and 1 more problem\)/],
+    ['several problems', 'code,latitude,longitude,height_m\n,1,4,0\nB,200,4,0\n', /line 2: site code must not be empty \(and 1 more problem\)/],
   ])('reports a bad sites file (%s) with its line and writes nothing', async (_name, text, msg) => {
     const r = await runCli(['plan', '--sites', file('x.csv', text), '--geometry', '40,190', ...BASE]);
     expect(r.code).toBe(2);

@@ -45,7 +45,7 @@ describe('site form', () => {
     expect(p.errors.code).toBe('Site code is empty');
     expect(p.errors.latDeg).toBe('Latitude must be in [-90, 90]°, got 95');
     expect(p.errors.lonDeg).toMatch(/Longitude must be a number, got "abc"/);
-    expect(p.errors.heightEllM).toBe('Ellipsoidal height is empty');
+    expect(p.errors.heightEllM).toBe('Ellipsoidal height is empty: type it, or choose “Unknown, to be surveyed”');
     expect(p.errors.accuracyM).toMatch(/Position accuracy must be in \[0, 1000000\] m, got -1/);
     expect(p.errors.frameEpoch).toMatch(/Frame epoch must be in \[1900, 2200\]/);
     expect(p.errors.referenceFrame).toBe('Reference frame is empty');

@@ -1,11 +1,12 @@
 import { useEffect, useState } from 'react';
 import type { Pass } from '../../../core/orbit/passes.ts';
-import type { SiteRecord } from '../../../data/index.ts';
+import { siteHeightForGeometryM, type SiteRecord } from '../../../data/index.ts';
 import { NEXT_PASS_DAYS } from './nextPass.ts';
 
 /** "Next pass: GLINT-A descending, incidence 29.3°, 2026-12-03 05:43 UTC", computed on the phone. */
 export function NextPass(props: { site: SiteRecord }) {
-  const { latDeg, lonDeg, heightEllM } = props.site;
+  const { latDeg, lonDeg } = props.site;
+  const heightEllM = siteHeightForGeometryM(props.site);
   const [state, setState] = useState<{ pass: Pass | null; sets: number } | undefined>(undefined);
   useEffect(() => {
     let live = true;

@@ -13,7 +13,7 @@ import { BackLink, DemoBadge, ErrorNote, SaveButton, SavedNote } from './bits.ts
 import { shownErrors } from './inputs.tsx';
 import { LogbookShell } from './LogbookShell.tsx';
 import { NextPass } from './NextPass.tsx';
-import { changedFields, parseSiteForm, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
+import { parseSiteForm, sitePatch, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
 import { SiteFormFields } from './SiteFormFields.tsx';
 import { GeometryTable, InspectionList, InstallationList, ReflectorSection, SiteDetails } from './SiteSections.tsx';
 import { Timeline } from './Timeline.tsx';
@@ -36,7 +36,7 @@ function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void 
       setError('Check the marked fields.');
       return;
     }
-    const patch = changedFields(base.fields, parsed.fields);
+    const patch = sitePatch(base.fields, parsed.fields);
     const expectedRev = onto === 'current' ? props.site.rev : base.rev;
     await run(async () => {
       await withReopen(db, () => siteRepo.update(db, props.site.id, patch, { by: writtenBy(st.crewName), expectedRev }));
