@@ -15,6 +15,27 @@ const GOOD = file('sites.csv', 'code,latitude,longitude,height_m\nMF01,52.1,4.3,
 const BASE = ['--shape', 'triangular', '--edge', '1.2', '--wavelength', '0.0555'];
 
 describe('glintmark plan', () => {
+  it('prints a readable table with the reflector, wavelength and defaults it assumed; --help lists the defaults', async () => {
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190', '--shape', 'triangular', '--edge', '1.2', '--band', 'C']);
+    expect(r.code).toBe(0);
+    const lines = r.stdout.split('\n');
+    expect(lines[0]).toMatch(/^reflector triangular, inner edge 1\.200 m; wavelength 5\.547 cm \(--band C\); peak RCS /);
+    expect(r.stdout).toContain('look side right where a --geometry gives none (default)');
+    const head = lines.findIndex((l) => l.startsWith('site '));
+    expect(lines[head]).toMatch(/^site\s+incidence °\s+heading °\s+look\s+reflector azimuth °/);
+    expect(lines[head + 2]).toMatch(/^MF01\s+40\.00\s+190\.00\s+right\s+100\.00\s/);
+    const help = await runCli(['plan', '--help']);
+    expect(help.stdout).toMatch(/Defaults: LOOK right when a --geometry omits it/);
+    expect(help.stdout).toMatch(/--format table\|csv\|json/);
+  });
+  it('--format csv prints CSV on stdout and the assumptions on stderr; --json and --format csv together are refused', async () => {
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', ...BASE, '--format', 'csv']);
+    expect(r.stdout.split('\r\n')[0]).toMatch(/^site_code,latitude_deg,/);
+    expect(r.stderr).toMatch(/^plan: reflector triangular, inner edge 1\.200 m; wavelength 5\.550 cm \(--wavelength\)/);
+    const bad = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', ...BASE, '--format', 'csv', '--json']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/give either --json or --format csv, not both/);
+  });
   it('writes a CSV row per site and geometry with the aim and predicted RCS', async () => {
     const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', '--geometry', '35,350,right', ...BASE, '--format', 'csv']);
     expect(r.code).toBe(0);
