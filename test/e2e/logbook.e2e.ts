@@ -120,6 +120,10 @@ describe('Logbook: durable records', () => {
     await fillIn('site-name', 'Marrowby Fen north bank');
     await fillIn('site-lat', '95');
     await fillIn('site-lon', '0.31');
+    // The emulated fix has no altitude: the height became "unknown, to be surveyed" instead of blocking the save.
+    expect(await txt('site-height-note')).toMatch(/This fix has no altitude: the height is marked unknown, to be surveyed/);
+    expect(await el('site-height-ref').locator('button[aria-pressed="true"]').innerText()).toBe('Unknown');
+    await el('site-height-ref').locator('button', { hasText: 'Ellipsoidal' }).click();
     await fillIn('site-height', '45.2');
     await fillIn('site-notes', '<b>gate key</b> at the farm');
     expect(await txt('site-lat-error')).toBe('Latitude must be in [-90, 90]°, got 95');
@@ -127,11 +131,24 @@ describe('Logbook: durable records', () => {
     await expectAccessible();
     await fillIn('site-lat', '52.61');
     expect(await el('site-source').locator('button[aria-pressed="true"]').innerText()).toBe('Typed');
+    // At 390 × 844: saving goes to the new site, with the confirmation and the offer to add its reflector in view.
+    await page.setViewportSize({ width: 390, height: 844 });
     await click('save-site');
-    await expect.poll(() => txt('saved'), POLL).toMatch(/Saved on this device/);
+    await page.waitForURL(/\/logbook\/site\/[^?]+\?saved=new/);
+    await expect.poll(() => txt('saved'), POLL).toMatch(/Site MF-01 saved on this device/);
+    for (const id of ['site-title', 'site-created', 'add-its-reflector']) {
+      const box = await el(id).boundingBox();
+      expect(box, id).not.toBeNull();
+      expect(box!.y, id).toBeGreaterThanOrEqual(0);
+      expect(box!.y + box!.height, id).toBeLessThanOrEqual(844);
+    }
+    expect(await txt('site-title')).toMatch(/MF-01/);
+    await screenshot(page, 'logbook-site-saved');
+    await page.setViewportSize({ width: 412, height: 915 });
+    await page.goto(BASE_URL + '/logbook');
     await expect.poll(() => txt('site-row-MF-01'), POLL).toMatch(/0 reflectors/);
     expect(await txt('site-row-MF-01')).toMatch(/never visited/);
-    await shot('logbook-site-saved', 'saved');
+    await click('new-site');
 
     await fillIn('site-code', 'mf-01');
     await fillIn('site-lat', '51.0');
@@ -143,6 +160,8 @@ describe('Logbook: durable records', () => {
     await fillIn('site-code', 'HR-1');
     await fillIn('site-name', 'Hollin Ridge');
     await click('save-site');
+    await page.waitForURL(/\/logbook\/site\//);
+    await page.goto(BASE_URL + '/logbook');
     await expect.poll(() => page.locator('[data-testid^="site-row-"]:visible').count(), POLL).toBe(2);
   });
 

@@ -3,7 +3,7 @@
  * timeline; "Use this site" hands it to Plan or Passes; delete is soft, with Undo.
  */
 import { useEffect, useState } from 'react';
-import { useHistory, useParams } from 'react-router-dom';
+import { useHistory, useLocation, useParams } from 'react-router-dom';
 import { siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
@@ -65,6 +65,8 @@ function SiteBody(props: { detail: SiteDetail }) {
   const db = useGlintmarkDb();
   const st = useStore(settings);
   const nav = useHistory();
+  const justCreated = new URLSearchParams(useLocation().search).get('saved') === 'new';
+  const [addingReflector, setAddingReflector] = useState(0);
   const [editing, setEditing] = useState(false);
   const [saved, setSaved] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -94,6 +96,26 @@ function SiteBody(props: { detail: SiteDetail }) {
         {site.code} <DemoBadge demo={site.demo} />
       </h1>
       {site.name ? <p className="gm-lb-text">{site.name}</p> : null}
+      {justCreated && !deleted ? (
+        <div className="gm-card" data-testid="site-created">
+          <SavedNote testId="saved">{`Site ${site.code} saved on this device`}</SavedNote>
+          {reflectors.length === 0 ? (
+            <div className="gm-lb-actions">
+              <button
+                type="button"
+                className="gm-btn gm-primary"
+                data-testid="add-its-reflector"
+                onClick={() => {
+                  setAddingReflector((n) => n + 1);
+                  requestAnimationFrame(() => document.getElementById('refl-h')?.scrollIntoView({ block: 'start' }));
+                }}
+              >
+                Add its reflector
+              </button>
+            </div>
+          ) : null}
+        </div>
+      ) : null}
       {deleted ? (
         <DeletedBanner testId="site-deleted" onUndo={() => void toggleDeleted()}>
           <b>✕ This site is deleted</b> (with the reflectors, installations and inspections deleted with it). Nothing is lost until you remove it
@@ -140,7 +162,7 @@ function SiteBody(props: { detail: SiteDetail }) {
         ) : null}
       </section>
 
-      <ReflectorSection site={site} reflectors={reflectors} />
+      <ReflectorSection key={addingReflector} site={site} reflectors={reflectors} startAdding={addingReflector > 0} />
       <section className="gm-section" aria-labelledby="geo-h">
         <h2 id="geo-h">Planned geometries ({geometries.length})</h2>
         <GeometryTable geometries={geometries} reflectors={reflectors} />

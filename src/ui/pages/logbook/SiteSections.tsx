@@ -89,9 +89,9 @@ function ReflectorCard(props: { r: ReflectorRecord; site: SiteRecord; onEdit: ()
   );
 }
 
-export function ReflectorSection(props: { site: SiteRecord; reflectors: ReflectorRecord[] }) {
+export function ReflectorSection(props: { site: SiteRecord; reflectors: ReflectorRecord[]; startAdding?: boolean }) {
   const wf = useStore(workflow);
-  const [editing, setEditing] = useState<string | 'new' | null>(null);
+  const [editing, setEditing] = useState<string | 'new' | null>(props.startAdding ? 'new' : null);
   const live = props.site.deletedAtMs === null;
   return (
     <section className="gm-section" aria-labelledby="refl-h">
