@@ -61,6 +61,7 @@ export { mergeBackup, type MergeConflict, type MergeOptions, type MergeReport, t
 export { removeDemoData, type DemoRemovalReport } from './demo.ts';
 
 export { AZIMUTH_METHOD_LABELS } from './words.ts';
+export { listDeletedRecords, siteChildCounts, type DeletedEntry } from './deleted.ts';
 export { EXPORT_DECIMALS } from './exchange/rounding.ts';
 export { siteHeightForGeometryM, siteHeightKind } from './siteHeight.ts';
 export { readSiteFile, siteFileKindOf, siteFileWhere, SITE_FILE_COLUMNS, SITE_FILE_MINIMAL_HEADER, type SiteFileKind, type SiteFileRead, type SiteFileRow } from './exchange/siteFile.ts';
@@ -80,6 +81,7 @@ export { filterAndSortSites, foldForSearch, haversineDistanceM, type Here, type 
 export {
   getAppDb,
   GlintmarkDbContext,
+  useDeletedRecords,
   useGeometries,
   useGlintmarkDb,
   useHistory,

@@ -272,6 +272,9 @@ describe('Logbook: durable records', () => {
     await click('back');
     await page.waitForURL(/\/logbook\/site\//);
     await click('delete-site');
+    // A site with children is not deleted at once: the phone says what goes with it and asks.
+    await expect.poll(() => txt('confirm-delete-site'), POLL).toMatch(/Delete site MF-01 with 1 reflector, 1 installation/);
+    await click('confirm-delete-site-yes');
     await expect.poll(() => txt('site-deleted'), POLL).toMatch(/This site is deleted/);
     await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(0);
     await shot('logbook-site-deleted', 'site-deleted');
@@ -279,6 +282,25 @@ describe('Logbook: durable records', () => {
     await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(1);
     await expect.poll(() => txt('timeline'), POLL).toMatch(/Restored site MF-01[\s\S]*Deleted site MF-01[\s\S]*With it: reflector A/);
     await shot('logbook-site-timeline', 'timeline');
+  });
+
+  it('finds a deleted installation in the deleted list after leaving its page, and restores it (390 × 844)', async () => {
+    await page.setViewportSize({ width: 390, height: 844 });
+    await click('installation-row');
+    await page.waitForURL(/\/logbook\/installation\//);
+    await click('delete-installation');
+    await expect.poll(() => txt('installation-deleted'), POLL).toMatch(/deleted/);
+    await page.goto(BASE_URL + '/settings');
+    const item = page.locator('[data-testid="deleted-records"] [data-testid^="deleted-installations-"]:visible').first();
+    await expect.poll(() => item.innerText(), POLL).toMatch(/installation of reflector A at MF-01/);
+    await item.scrollIntoViewIfNeeded();
+    await item.locator('[data-testid="restore-deleted"]').click();
+    await expect.poll(() => txt('restored'), POLL).toMatch(/Restored installation of reflector A at MF-01/);
+    await screenshot(page, 'settings-deleted-restored');
+    await page.goto(BASE_URL + '/logbook');
+    await click('site-row-MF-01');
+    await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(1);
+    await page.setViewportSize({ width: 412, height: 915 });
   });
 
   it('records an inspection; a photo over the limit is refused in words and the record is kept', async () => {

@@ -4,7 +4,7 @@
  */
 import { useEffect, useState } from 'react';
 import { useHistory, useLocation, useParams } from 'react-router-dom';
-import { siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
+import { siteChildCounts, siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
 import { workflow } from '../../state/workflow.ts';
@@ -17,10 +17,11 @@ import { parseSiteForm, sitePatch, siteFormFromRecord, siteInputFromRecord, with
 import { SiteFormFields } from './SiteFormFields.tsx';
 import { GeometryTable, InspectionList, InstallationList, ReflectorSection, SiteDetails } from './SiteSections.tsx';
 import { Timeline } from './Timeline.tsx';
+import { DeletedRecords } from './DeletedRecords.tsx';
 import { loadSiteTimeline, type TimelineEntry } from './timeline.ts';
 import { useSaveState } from './useSaveState.ts';
 import { useToggleDeleted } from './useToggleDeleted.ts';
-import { writtenBy } from './words.ts';
+import { siteChildWords, writtenBy } from './words.ts';
 
 function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void }) {
   const db = useGlintmarkDb();
@@ -88,6 +89,14 @@ function SiteBody(props: { detail: SiteDetail }) {
     nav.push(path);
   };
   const toggleDeleted = useToggleDeleted(siteRepo, site, writtenBy(st.crewName), `Site ${site.code}`, { setSaved, setError });
+  const [confirming, setConfirming] = useState<string | null>(null);
+  /** Ask first when the site has children, naming how many of each go with it; a bare site is deleted at once (Undo). */
+  const askDelete = async () => {
+    const n = await siteChildCounts(db, site.id);
+    const parts = siteChildWords(n);
+    if (parts.length === 0) await toggleDeleted();
+    else setConfirming(`Delete site ${site.code} with ${parts.join(', ')}? They stay restorable from “Deleted records” until removed for good.`);
+  };
 
   return (
     <>
@@ -155,9 +164,30 @@ function SiteBody(props: { detail: SiteDetail }) {
             <button type="button" className="gm-btn" onClick={() => setEditing(true)} data-testid="edit-site">
               Edit site
             </button>
-            <button type="button" className="gm-btn" onClick={() => void toggleDeleted()} data-testid="delete-site">
+            <button type="button" className="gm-btn" onClick={() => void askDelete()} data-testid="delete-site">
               Delete site
             </button>
+          </div>
+        ) : null}
+        {confirming && !deleted ? (
+          <div className="gm-card" role="alertdialog" aria-label="Confirm deleting the site" data-testid="confirm-delete-site">
+            <p>{confirming}</p>
+            <div className="gm-lb-actions">
+              <button
+                type="button"
+                className="gm-btn gm-primary"
+                data-testid="confirm-delete-site-yes"
+                onClick={() => {
+                  setConfirming(null);
+                  void toggleDeleted();
+                }}
+              >
+                Delete all
+              </button>
+              <button type="button" className="gm-btn" onClick={() => setConfirming(null)} data-testid="confirm-delete-site-no">
+                Keep the site
+              </button>
+            </div>
           </div>
         ) : null}
       </section>
@@ -175,6 +205,7 @@ function SiteBody(props: { detail: SiteDetail }) {
         <h2 id="insp-h">Inspections ({inspections.length})</h2>
         <InspectionList inspections={inspections} reflectors={reflectors} />
       </section>
+      {!deleted ? <DeletedRecords siteId={site.id} title="Deleted on this site" /> : null}
       <section className="gm-section" aria-labelledby="hist-h">
         <h2 id="hist-h">History</h2>
         {timeline === null ? <p>Loading history…</p> : <Timeline entries={timeline} />}

@@ -111,3 +111,14 @@ export function writtenBy(settingsCrewName: string, crew: readonly string[] = []
 
 /** A photo role in words ("Along the boresight"); unknown roles as stored. */
 export const photoRoleLabel = (role: string): string => PHOTO_ROLE_WORDS[role] ?? role;
+
+/** "2 reflectors, 1 installation" for what a site delete takes with it (zero counts left out). */
+export function siteChildWords(n: { reflectors: number; geometries: number; installations: number; inspections: number }): string[] {
+  const w = (k: number, one: string, many: string) => (k === 0 ? [] : [`${k} ${k === 1 ? one : many}`]);
+  return [
+    ...w(n.reflectors, 'reflector', 'reflectors'),
+    ...w(n.installations, 'installation', 'installations'),
+    ...w(n.inspections, 'inspection', 'inspections'),
+    ...w(n.geometries, 'planned geometry', 'planned geometries'),
+  ];
+}
