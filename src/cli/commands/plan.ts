@@ -1,4 +1,4 @@
-import { readFileSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { aimForPass } from '../../core/geometry/pointing.ts';
 import { compromiseOrientation } from '../../core/reflector/compromise.ts';
 import { misalignment } from '../../core/reflector/misalignment.ts';
@@ -8,6 +8,7 @@ import { toDb } from '../../core/units.ts';
 import { requirePositive } from '../../core/validate.ts';
 import { UsageError, type Args } from '../args.ts';
 import type { Command } from '../command.ts';
+import { assertOutIsNotInput, readInputText } from '../input.ts';
 import { jsonNumber, readGeometries, readShape, readWavelengthM } from '../common.ts';
 import { fmt, table } from '../output.ts';
 import { parseSitesCsv } from '../sitesCsv.ts';
@@ -49,7 +50,7 @@ export const command: Command = {
     'Defaults: LOOK right when a --geometry omits it; each geometry gets its own aim unless --one-reflector (one compromise per\n' +
     '  site); output a table on the screen, CSV in an --out file, JSON with --json. No default band, shape or edge: give them.',
   switches: ['one-reflector'],
-  run(args, out) {
+  async run(args, out) {
     const oneReflector = args.flag('one-reflector');
     const sitesPath = args.string('sites');
     const geometrySpecs = args.strings('geometry');
@@ -62,12 +63,8 @@ export const command: Command = {
     const format = readFormat(args, outPath !== undefined);
     args.assertNoUnknown();
 
-    let text: string;
-    try {
-      text = readFileSync(sitesPath, 'utf8');
-    } catch (e) {
-      throw new UsageError(`cannot read --sites ${sitesPath}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
-    }
+    if (outPath) assertOutIsNotInput(outPath, [{ flag: '--sites', path: sitesPath }]);
+    const text = await readInputText('--sites', sitesPath, out);
     const sites = parseSitesCsv(sitesPath, text);
     const reflector = { shape, edgeM, wavelengthM };
     const peakDbsm = toDb(peakRcsM2(reflector));

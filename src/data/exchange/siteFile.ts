@@ -33,12 +33,13 @@
  * position has no third coordinate; none at all = height unknown). The properties the app's GeoJSON export adds
  * (installation_*, reflectors, ids, times) are ignored.
  *
- * A leading apostrophe in front of = + - @ (written by spreadsheet-safe CSV exports so that a cell is not taken as
- * a formula) is removed before a value is read.
+ * A CSV cell the app's export protected against spreadsheet formulas ("'=…") is read back as written
+ * (unprotectCsvCell).
  */
 import { fieldIssues } from '../schema/validate.ts';
 import type { SiteFields } from '../types.ts';
-import { CsvSyntaxError, SEPARATOR_NAMES, detectCsvSeparator, parseCsv, type CsvSeparator } from '../../core/text/csv.ts';
+import { CsvSyntaxError, SEPARATOR_NAMES, detectCsvSeparator, parseCsv, unprotectCsvCell, type CsvSeparator } from '../../core/text/csv.ts';
+import { geoJsonCrsProblem } from './geojson.ts';
 
 export type SiteFileKind = 'csv' | 'geojson';
 
@@ -98,13 +99,11 @@ interface NumberStyle {
   separator: CsvSeparator | null;
 }
 
-const FORMULA_GUARD = /^'(?=[=+\-@])/;
-const unguard = (s: string) => s.replace(FORMULA_GUARD, '');
 
 function num(label: string, v: unknown, required: boolean, style: NumberStyle): number | null | string {
   if (v === undefined || v === null || v === '') return required ? `${label} is empty` : null;
   if (typeof v === 'number') return v;
-  const s = unguard(String(v).trim());
+  const s = String(v).trim();
   if (s === '') return required ? `${label} is empty` : null;
   if (NUMBER.test(s)) return Number(s);
   const dc = DECIMAL_COMMA.exec(s);
@@ -119,7 +118,7 @@ function num(label: string, v: unknown, required: boolean, style: NumberStyle): 
   return `${label} ${JSON.stringify(s)} is not a number${s.includes(',') ? ' (use a dot as the decimal separator, and no thousands separators)' : ''}`;
 }
 
-const text = (v: unknown) => (v === undefined || v === null ? '' : unguard(String(v).trim()));
+const text = (v: unknown) => (v === undefined || v === null ? '' : String(v).trim());
 
 /** Fields of one candidate (checked by the record schema, as every write is), or the reason it is refused. */
 function toFields(raw: Raw, style: NumberStyle): SiteFields | string {
@@ -196,8 +195,10 @@ function parseCsvSites(input: string): Parsed {
       continue;
     }
     const raw: Raw = { extras: [] };
-    for (const c of Object.keys(SITE_FILE_COLUMNS) as Column[]) if (index[c] >= 0) raw[c] = r.fields[index[c]];
-    r.fields.forEach((v, i) => {
+    // Cells the app's export protected against spreadsheet formulas ("'=…") are read back as written.
+    const cells = r.fields.map(unprotectCsvCell);
+    for (const c of Object.keys(SITE_FILE_COLUMNS) as Column[]) if (index[c] >= 0) raw[c] = cells[index[c]];
+    cells.forEach((v, i) => {
       if (!known.has(i) && !IGNORED.has(names[i]) && v.trim() !== '') raw.extras.push([header.fields[i].trim(), v]);
     });
     candidates.push({ row: r.line, raw });
@@ -217,6 +218,8 @@ function parseGeoJsonSites(input: string): Parsed {
   } catch {
     return whole('not a GeoJSON file: the text is not JSON');
   }
+  const crs = geoJsonCrsProblem(data);
+  if (crs) return whole(crs);
   const o = (data ?? {}) as { type?: unknown; features?: unknown };
   const features = o.type === 'FeatureCollection' && Array.isArray(o.features) ? (o.features as unknown[]) : o.type === 'Feature' ? [data] : null;
   if (!features) return whole(`not a GeoJSON FeatureCollection (its type is ${JSON.stringify(o.type ?? null)})`);

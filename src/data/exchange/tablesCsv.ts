@@ -4,8 +4,8 @@
  * ISO 8601 UTC; lists (geometry ids, crew) are joined with "; ". Numbers are rounded as rounding.ts states.
  * Each installation row stands alone: it names its reflector (label, shape, edge) and the geometries it serves
  * (satellite, direction, incidence, heading, look: lists in geometry_ids order), and its azimuth method as the
- * screen shows it. Text is written as stored: a note that starts with "=" stays as typed, so open these files in a
- * spreadsheet with formulas disabled.
+ * screen shows it. A text cell that a spreadsheet would run as a formula (starting with =, +, -, @, TAB or CR) is
+ * prefixed with a quote (core/text/csv.ts protectCsvCell); the site import removes it again.
  */
 import type { GlintmarkDb } from '../db.ts';
 import type { GeometryRecord, InspectionRecord, InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';
