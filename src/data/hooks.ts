@@ -4,6 +4,7 @@
  * change to a table the query read (also from other tabs). Screens call these and the repositories,
  * never Dexie directly.
  */
+import { listDeletedRecords, type DeletedEntry } from './deleted.ts';
 import { useLiveQuery } from 'dexie-react-hooks';
 import { createContext, useContext, useMemo } from 'react';
 import { openGlintmarkDb, type GlintmarkDb } from './db.ts';
@@ -109,4 +110,10 @@ export function usePhotos(owner: PhotoOwner): PhotoRecord[] | undefined {
 export function useOpenConflicts(): ConflictRecord[] | undefined {
   const db = useGlintmarkDb();
   return useLiveQuery(() => listConflicts(db), [db]);
+}
+
+/** Soft-deleted records (of one site when given), newest first: see listDeletedRecords. */
+export function useDeletedRecords(siteId?: string): DeletedEntry[] | undefined {
+  const db = useGlintmarkDb();
+  return useLiveQuery(() => listDeletedRecords(db, siteId === undefined ? {} : { siteId }), [db, siteId]);
 }

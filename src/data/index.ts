@@ -71,6 +71,11 @@ export {
 export { mergeBackup, type MergeConflict, type MergeOptions, type MergeReport, type TableMergeReport } from './merge.ts';
 export { removeDemoData, type DemoRemovalReport } from './demo.ts';
 
+export { AZIMUTH_METHOD_LABELS } from './words.ts';
+export { listDeletedRecords, siteChildCounts, type DeletedEntry } from './deleted.ts';
+export { EXPORT_DECIMALS } from './exchange/rounding.ts';
+export { siteHeightForGeometryM, siteHeightKind } from './siteHeight.ts';
+export { readSiteFile, siteFileKindOf, siteFileWhere, SITE_FILE_COLUMNS, SITE_FILE_MINIMAL_HEADER, type SiteFileKind, type SiteFileRead, type SiteFileRow } from './exchange/siteFile.ts';
 export { exportSitesGeoJson, type PointFeature, type SitesFeatureCollection } from './exchange/geojson.ts';
 export { exportInspectionsCsv, exportInstallationsCsv, exportSitesCsv, INSPECTION_COLUMNS, INSTALLATION_COLUMNS, SITE_COLUMNS } from './exchange/tablesCsv.ts';
 export {
@@ -87,6 +92,7 @@ export { filterAndSortSites, foldForSearch, haversineDistanceM, type Here, type 
 export {
   getAppDb,
   GlintmarkDbContext,
+  useDeletedRecords,
   useGeometries,
   useGlintmarkDb,
   useHistory,

@@ -26,7 +26,16 @@ export interface SiteFields {
   name: string;
   latDeg: number;
   lonDeg: number;
-  heightEllM: number;
+  /**
+   * Height above the WGS84 ellipsoid; null when unknown ("to be surveyed"), or when only a height above
+   * mean sea level is known (then in `heightMslM`).
+   */
+  heightEllM: number | null;
+  /**
+   * Height above mean sea level, kept only when that is what the position source gave (a phone whose platform
+   * reports sea-level altitude); null or absent otherwise. Never converted to ellipsoidal (no geoid model here).
+   */
+  heightMslM?: number | null;
   positionSource: PositionSource;
   /** Horizontal 1-sigma accuracy of the position; null when unknown (typed or imported). */
   positionAccuracyM: number | null;

@@ -15,8 +15,29 @@ const GOOD = file('sites.csv', 'code,latitude,longitude,height_m\nMF01,52.1,4.3,
 const BASE = ['--shape', 'triangular', '--edge', '1.2', '--wavelength', '0.0555'];
 
 describe('glintmark plan', () => {
+  it('prints a readable table with the reflector, wavelength and defaults it assumed; --help lists the defaults', async () => {
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190', '--shape', 'triangular', '--edge', '1.2', '--band', 'C']);
+    expect(r.code).toBe(0);
+    const lines = r.stdout.split('\n');
+    expect(lines[0]).toMatch(/^reflector triangular, inner edge 1\.200 m; wavelength 5\.547 cm \(--band C\); peak RCS /);
+    expect(r.stdout).toContain('look side right where a --geometry gives none (default)');
+    const head = lines.findIndex((l) => l.startsWith('site '));
+    expect(lines[head]).toMatch(/^site\s+incidence °\s+heading °\s+look\s+reflector azimuth °/);
+    expect(lines[head + 2]).toMatch(/^MF01\s+40\.00\s+190\.00\s+right\s+100\.00\s/);
+    const help = await runCli(['plan', '--help']);
+    expect(help.stdout).toMatch(/Defaults: LOOK right when a --geometry omits it/);
+    expect(help.stdout).toMatch(/--format table\|csv\|json/);
+  });
+  it('--format csv prints CSV on stdout and the assumptions on stderr; --json and --format csv together are refused', async () => {
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', ...BASE, '--format', 'csv']);
+    expect(r.stdout.split('\r\n')[0]).toMatch(/^site_code,latitude_deg,/);
+    expect(r.stderr).toMatch(/^plan: reflector triangular, inner edge 1\.200 m; wavelength 5\.550 cm \(--wavelength\)/);
+    const bad = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', ...BASE, '--format', 'csv', '--json']);
+    expect(bad.code).toBe(2);
+    expect(bad.stderr).toMatch(/give either --json or --format csv, not both/);
+  });
   it('writes a CSV row per site and geometry with the aim and predicted RCS', async () => {
-    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', '--geometry', '35,350,right', ...BASE]);
+    const r = await runCli(['plan', '--sites', GOOD, '--geometry', '40,190,right', '--geometry', '35,350,right', ...BASE, '--format', 'csv']);
     expect(r.code).toBe(0);
     const rows = parseCsv(r.stdout).map((x) => x.fields);
     expect(rows[0]).toContain('reflector_azimuth_deg');
@@ -57,12 +78,12 @@ describe('glintmark plan', () => {
   });
   it.each([
     ['missing column', 'code,latitude,longitude\nA,1,2\n', /line 1: missing column height_m/],
-    ['latitude out of range', 'code,latitude,longitude,height_m\nA,52,4,0\nB,95,4,0\n', /line 3: latitude 95 is out of range \[-90, 90\]°; nothing was written/],
-    ['not a number', 'code,latitude,longitude,height_m\nA,north,4,0\n', /line 2: latitude must be a number, got "north"/],
-    ['duplicate code', 'code,latitude,longitude,height_m\nA,1,4,0\nA,2,4,0\n', /line 3: site code "A" is already used on line 2/],
+    ['latitude out of range', 'code,latitude,longitude,height_m\nA,52,4,0\nB,95,4,0\n', /line 3: latitude must be in \[-90, 90\] degrees, got 95; nothing was written/],
+    ['not a number', 'code,latitude,longitude,height_m\nA,north,4,0\n', /line 2: latitude "north" is not a number/],
+    ['duplicate code', 'code,latitude,longitude,height_m\nA,1,4,0\nA,2,4,0\n', /line 3: code A repeats the code of line 2/],
     ['unclosed quote', 'code,latitude,longitude,height_m\n"A,1,4,0\n', /a quoted field is never closed/],
     ['empty', '', /is empty/],
-    ['several problems', 'code,latitude,longitude,height_m\n,1,4,0\nB,200,4,0\n', /line 2: the site code is empty \(and 1 more problem\)/],
+    ['several problems', 'code,latitude,longitude,height_m\n,1,4,0\nB,200,4,0\n', /line 2: site code must not be empty \(and 1 more problem\)/],
   ])('reports a bad sites file (%s) with its line and writes nothing', async (_name, text, msg) => {
     const r = await runCli(['plan', '--sites', file('x.csv', text), '--geometry', '40,190', ...BASE]);
     expect(r.code).toBe(2);

@@ -120,6 +120,10 @@ describe('Logbook: durable records', () => {
     await fillIn('site-name', 'Marrowby Fen north bank');
     await fillIn('site-lat', '95');
     await fillIn('site-lon', '0.31');
+    // The emulated fix has no altitude: the height became "unknown, to be surveyed" instead of blocking the save.
+    expect(await txt('site-height-note')).toMatch(/This fix has no altitude: the height is marked unknown, to be surveyed/);
+    expect(await el('site-height-ref').locator('button[aria-pressed="true"]').innerText()).toBe('Unknown');
+    await el('site-height-ref').locator('button', { hasText: 'Ellipsoidal' }).click();
     await fillIn('site-height', '45.2');
     await fillIn('site-notes', '<b>gate key</b> at the farm');
     expect(await txt('site-lat-error')).toBe('Latitude must be in [-90, 90]°, got 95');
@@ -127,11 +131,24 @@ describe('Logbook: durable records', () => {
     await expectAccessible();
     await fillIn('site-lat', '52.61');
     expect(await el('site-source').locator('button[aria-pressed="true"]').innerText()).toBe('Typed');
+    // At 390 × 844: saving goes to the new site, with the confirmation and the offer to add its reflector in view.
+    await page.setViewportSize({ width: 390, height: 844 });
     await click('save-site');
-    await expect.poll(() => txt('saved'), POLL).toMatch(/Saved on this device/);
+    await page.waitForURL(/\/logbook\/site\/[^?]+\?saved=new/);
+    await expect.poll(() => txt('saved'), POLL).toMatch(/Site MF-01 saved on this device/);
+    for (const id of ['site-title', 'site-created', 'add-its-reflector']) {
+      const box = await el(id).boundingBox();
+      expect(box, id).not.toBeNull();
+      expect(box!.y, id).toBeGreaterThanOrEqual(0);
+      expect(box!.y + box!.height, id).toBeLessThanOrEqual(844);
+    }
+    expect(await txt('site-title')).toMatch(/MF-01/);
+    await screenshot(page, 'logbook-site-saved');
+    await page.setViewportSize({ width: 412, height: 915 });
+    await page.goto(BASE_URL + '/logbook');
     await expect.poll(() => txt('site-row-MF-01'), POLL).toMatch(/0 reflectors/);
     expect(await txt('site-row-MF-01')).toMatch(/never visited/);
-    await shot('logbook-site-saved', 'saved');
+    await click('new-site');
 
     await fillIn('site-code', 'mf-01');
     await fillIn('site-lat', '51.0');
@@ -143,6 +160,8 @@ describe('Logbook: durable records', () => {
     await fillIn('site-code', 'HR-1');
     await fillIn('site-name', 'Hollin Ridge');
     await click('save-site');
+    await page.waitForURL(/\/logbook\/site\//);
+    await page.goto(BASE_URL + '/logbook');
     await expect.poll(() => page.locator('[data-testid^="site-row-"]:visible').count(), POLL).toBe(2);
   });
 
@@ -254,6 +273,9 @@ describe('Logbook: durable records', () => {
     await click('back');
     await page.waitForURL(/\/logbook\/site\//);
     await click('delete-site');
+    // A site with children is not deleted at once: the phone says what goes with it and asks.
+    await expect.poll(() => txt('confirm-delete-site'), POLL).toMatch(/Delete site MF-01 with 1 reflector, 1 installation/);
+    await click('confirm-delete-site-yes');
     await expect.poll(() => txt('site-deleted'), POLL).toMatch(/This site is deleted/);
     await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(0);
     await shot('logbook-site-deleted', 'site-deleted');
@@ -261,6 +283,25 @@ describe('Logbook: durable records', () => {
     await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(1);
     await expect.poll(() => txt('timeline'), POLL).toMatch(/Restored site MF-01[\s\S]*Deleted site MF-01[\s\S]*With it: reflector A/);
     await shot('logbook-site-timeline', 'timeline');
+  });
+
+  it('finds a deleted installation in the deleted list after leaving its page, and restores it (390 × 844)', async () => {
+    await page.setViewportSize({ width: 390, height: 844 });
+    await click('installation-row');
+    await page.waitForURL(/\/logbook\/installation\//);
+    await click('delete-installation');
+    await expect.poll(() => txt('installation-deleted'), POLL).toMatch(/deleted/);
+    await page.goto(BASE_URL + '/settings');
+    const item = page.locator('[data-testid="deleted-records"] [data-testid^="deleted-installations-"]:visible').first();
+    await expect.poll(() => item.innerText(), POLL).toMatch(/installation of reflector A at MF-01/);
+    await item.scrollIntoViewIfNeeded();
+    await item.locator('[data-testid="restore-deleted"]').click();
+    await expect.poll(() => txt('restored'), POLL).toMatch(/Restored installation of reflector A at MF-01/);
+    await screenshot(page, 'settings-deleted-restored');
+    await page.goto(BASE_URL + '/logbook');
+    await click('site-row-MF-01');
+    await expect.poll(() => page.locator('[data-testid="installation-row"]:visible').count(), POLL).toBe(1);
+    await page.setViewportSize({ width: 412, height: 915 });
   });
 
   it('records an inspection; a photo over the limit is refused in words and the record is kept', async () => {

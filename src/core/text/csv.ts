@@ -20,9 +20,42 @@ export class CsvSyntaxError extends Error {
   }
 }
 
-/** Parse CSV text into records. A byte-order mark is dropped; blank lines are skipped. */
-export function parseCsv(text: string): CsvRecord[] {
-  const s = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+/** Field separators met in the files spreadsheets write: comma (RFC 4180), semicolon (decimal-comma locales), tab. */
+export type CsvSeparator = ',' | ';' | '\t';
+export const CSV_SEPARATORS: readonly CsvSeparator[] = [',', ';', '\t'];
+export const SEPARATOR_NAMES: Record<CsvSeparator, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
+
+const withoutBom = (text: string) => (text.charCodeAt(0) === 0xfeff ? text.slice(1) : text);
+
+/**
+ * The separator of the first record (the header): the candidate that occurs most often outside quotes; a comma on a
+ * tie or when none occurs (a one-column file).
+ */
+export function detectCsvSeparator(text: string): CsvSeparator {
+  const s = withoutBom(text);
+  const counts = new Map<string, number>(CSV_SEPARATORS.map((c) => [c, 0]));
+  let quoted = false;
+  let started = false;
+  for (const c of s) {
+    if (c === '"') quoted = !quoted;
+    else if (!quoted && (c === '\n' || c === '\r')) {
+      if (started) break;
+      continue;
+    } else if (!quoted && counts.has(c)) counts.set(c, counts.get(c)! + 1);
+    started = true;
+  }
+  let best: CsvSeparator = ',';
+  for (const c of CSV_SEPARATORS) if (counts.get(c)! > counts.get(best)!) best = c;
+  return best;
+}
+
+/**
+ * Parse CSV text into records. A byte-order mark is dropped; blank lines are skipped. `separator` is a comma unless
+ * given (see detectCsvSeparator); quoting rules are RFC 4180's whatever the separator.
+ */
+export function parseCsv(text: string, options: { separator?: CsvSeparator } = {}): CsvRecord[] {
+  const sep = options.separator ?? ',';
+  const s = withoutBom(text);
   const out: CsvRecord[] = [];
   let fields: string[] = [];
   let field = '';
@@ -50,7 +83,7 @@ export function parseCsv(text: string): CsvRecord[] {
         quoted = false;
         i++;
         const n = s[i];
-        if (n !== undefined && n !== ',' && n !== '\n' && n !== '\r') {
+        if (n !== undefined && n !== sep && n !== '\n' && n !== '\r') {
           throw new CsvSyntaxError(`line ${line}: text after a closing quote; a quote inside a quoted field must be doubled ("")`, line);
         }
         continue;
@@ -65,7 +98,7 @@ export function parseCsv(text: string): CsvRecord[] {
       quoted = true;
       fieldStarted = true;
       i++;
-    } else if (c === ',') {
+    } else if (c === sep) {
       fields.push(field);
       field = '';
       fieldStarted = true;

@@ -1,68 +1,129 @@
 /**
- * Sites with their latest live installation as a GeoJSON FeatureCollection, per RFC 7946
+ * Sites with their reflectors and installations as a GeoJSON FeatureCollection, per RFC 7946
  * (Butler et al., "The GeoJSON Format", IETF 2016): one Point feature per live site, coordinates
- * [longitude, latitude, height] in that order (§3.1.1), WGS84 degrees and metres above the ellipsoid (§4);
- * no "crs" member (§4). Coordinates keep full precision. Property names carry units; times are ISO 8601 UTC.
- * A site's referenceFrame (e.g. ITRF2020) is reported as a property; coordinates are not transformed.
+ * [longitude, latitude, height] in that order (§3.1.1), WGS84 degrees and metres above the ellipsoid (§4), or
+ * [longitude, latitude] when the ellipsoidal height is unknown; no "crs" member (§4). Numbers are rounded as
+ * rounding.ts states (8 decimals of a degree is about 1 mm, finer than the 6 §11.2 suggests, for surveyed marks).
+ * Property names carry units; times are ISO 8601 UTC. A site's referenceFrame (e.g. ITRF2020) is reported as a
+ * property; coordinates are not transformed.
+ *
+ * Each feature stands alone: `reflectors` lists every live reflector of the site (label, shape, edge) with its
+ * latest live installation and the geometries that installation serves; the flat installation_* properties keep
+ * the site's latest installation of any reflector, as before.
  */
 import type { GlintmarkDb } from '../db.ts';
-import type { InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';
+import type { GeometryRecord, InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';
+import { AZIMUTH_METHOD_LABELS } from '../words.ts';
 import { isoUtc } from '../../core/time.ts';
+import { rounded } from './rounding.ts';
+
+export type JsonValue = string | number | boolean | null | JsonValue[] | { [k: string]: JsonValue };
 
 export interface PointFeature {
   type: 'Feature';
   id: string;
-  geometry: { type: 'Point'; coordinates: [number, number, number] };
-  properties: Record<string, string | number | boolean | null>;
+  geometry: { type: 'Point'; coordinates: [number, number, number] | [number, number] };
+  properties: Record<string, JsonValue>;
 }
 
 export interface SitesFeatureCollection {
   type: 'FeatureCollection';
   features: PointFeature[];
   /** Foreign member (RFC 7946 §6.1) stating the conventions of the properties. */
-  glintmark: { exportedAtUtc: string; azimuths: string; heights: string };
+  glintmark: { exportedAtUtc: string; azimuths: string; heights: string; rounding: string };
 }
 
-/** Latest live installation per site id. */
-function latestInstallationBySite(installations: readonly InstallationRecord[]): Map<string, InstallationRecord> {
+/** Latest live installation per key (site id or reflector id). */
+function latestBy(installations: readonly InstallationRecord[], key: (i: InstallationRecord) => string): Map<string, InstallationRecord> {
   const out = new Map<string, InstallationRecord>();
   for (const i of installations) {
     if (i.deletedAtMs !== null) continue;
-    const cur = out.get(i.siteId);
-    if (!cur || i.installedAtMs > cur.installedAtMs || (i.installedAtMs === cur.installedAtMs && i.id > cur.id)) out.set(i.siteId, i);
+    const cur = out.get(key(i));
+    if (!cur || i.installedAtMs > cur.installedAtMs || (i.installedAtMs === cur.installedAtMs && i.id > cur.id)) out.set(key(i), i);
   }
   return out;
 }
 
-function siteFeature(s: SiteRecord, inst: InstallationRecord | undefined, reflector: ReflectorRecord | undefined): PointFeature {
+const angle = (x: number | null | undefined) => rounded(x, 'angleDeg');
+
+function installationObject(i: InstallationRecord, geometries: ReadonlyMap<string, GeometryRecord>): JsonValue {
+  return {
+    installation_id: i.id,
+    installed_at_utc: isoUtc(i.installedAtMs),
+    planned_azimuth_deg: angle(i.plannedAzimuthDeg),
+    planned_tilt_deg: angle(i.plannedTiltDeg),
+    measured_azimuth_deg: angle(i.measuredAzimuthDeg),
+    measured_tilt_deg: angle(i.measuredTiltDeg),
+    measured_roll_deg: angle(i.measuredRollDeg),
+    azimuth_method: i.azimuthMethod,
+    azimuth_method_label: AZIMUTH_METHOD_LABELS[i.azimuthMethod],
+    declination_deg: angle(i.declinationDeg),
+    declination_model: i.declinationModel,
+    predicted_loss_db: rounded(i.predictedLossDb, 'lossDb'),
+    crew: i.crew,
+    geometries: i.geometryIds.map((id): JsonValue => {
+      const g = geometries.get(id);
+      if (!g) return { geometry_id: id };
+      return {
+        geometry_id: id, satellite: g.satellite, direction: g.direction, incidence_deg: angle(g.incidenceDeg), heading_deg: angle(g.headingDeg),
+        look: g.look, band: g.band,
+      };
+    }),
+  };
+}
+
+interface Related {
+  reflectors: readonly ReflectorRecord[];
+  latestByReflector: ReadonlyMap<string, InstallationRecord>;
+  geometries: ReadonlyMap<string, GeometryRecord>;
+}
+
+function siteFeature(s: SiteRecord, inst: InstallationRecord | undefined, reflector: ReflectorRecord | undefined, rel: Related): PointFeature {
+  const lon = rounded(s.lonDeg, 'latLonDeg')!;
+  const lat = rounded(s.latDeg, 'latLonDeg')!;
+  const h = rounded(s.heightEllM, 'lengthM');
   return {
     type: 'Feature',
     id: s.id,
-    geometry: { type: 'Point', coordinates: [s.lonDeg, s.latDeg, s.heightEllM] },
+    geometry: { type: 'Point', coordinates: h === null ? [lon, lat] : [lon, lat, h] },
     properties: {
       site_id: s.id,
       code: s.code,
       name: s.name,
-      height_ell_m: s.heightEllM,
+      height_ell_m: h,
+      height_msl_m: rounded(s.heightMslM, 'lengthM'),
       position_source: s.positionSource,
-      position_accuracy_m: s.positionAccuracyM,
+      position_accuracy_m: rounded(s.positionAccuracyM, 'accuracyM'),
       reference_frame: s.referenceFrame,
-      frame_epoch_year: s.frameEpoch,
+      frame_epoch_year: rounded(s.frameEpoch, 'epochYear'),
       notes: s.notes,
       updated_at_utc: isoUtc(s.updatedAtMs),
       demo: s.demo,
       installation_id: inst?.id ?? null,
       installation_reflector_label: reflector?.label ?? null,
       installation_installed_at_utc: isoUtc(inst?.installedAtMs),
-      installation_planned_azimuth_deg: inst?.plannedAzimuthDeg ?? null,
-      installation_planned_tilt_deg: inst?.plannedTiltDeg ?? null,
-      installation_measured_azimuth_deg: inst?.measuredAzimuthDeg ?? null,
-      installation_measured_tilt_deg: inst?.measuredTiltDeg ?? null,
-      installation_measured_roll_deg: inst?.measuredRollDeg ?? null,
+      installation_planned_azimuth_deg: angle(inst?.plannedAzimuthDeg),
+      installation_planned_tilt_deg: angle(inst?.plannedTiltDeg),
+      installation_measured_azimuth_deg: angle(inst?.measuredAzimuthDeg),
+      installation_measured_tilt_deg: angle(inst?.measuredTiltDeg),
+      installation_measured_roll_deg: angle(inst?.measuredRollDeg),
       installation_azimuth_method: inst?.azimuthMethod ?? null,
-      installation_declination_deg: inst?.declinationDeg ?? null,
+      installation_azimuth_method_label: inst ? AZIMUTH_METHOD_LABELS[inst.azimuthMethod] : null,
+      installation_declination_deg: angle(inst?.declinationDeg),
       installation_declination_model: inst?.declinationModel ?? null,
-      installation_predicted_loss_db: inst?.predictedLossDb ?? null,
+      installation_predicted_loss_db: rounded(inst?.predictedLossDb, 'lossDb'),
+      reflector_count: rel.reflectors.length,
+      reflectors: rel.reflectors.map((r): JsonValue => {
+        const latest = rel.latestByReflector.get(r.id);
+        return {
+          reflector_id: r.id,
+          label: r.label,
+          shape: r.shape,
+          edge_m: rounded(r.edgeM, 'lengthM'),
+          panels: r.construction.panels,
+          latest_installation: latest ? installationObject(latest, rel.geometries) : null,
+        };
+      }),
     },
   };
 }
@@ -70,16 +131,25 @@ function siteFeature(s: SiteRecord, inst: InstallationRecord | undefined, reflec
 function sitesToGeoJson(
   sites: readonly SiteRecord[],
   installations: readonly InstallationRecord[],
-  reflectors: ReadonlyMap<string, ReflectorRecord>,
+  reflectorRows: readonly ReflectorRecord[],
+  geometries: ReadonlyMap<string, GeometryRecord>,
   nowMs = Date.now(),
 ): SitesFeatureCollection {
-  const latest = latestInstallationBySite(installations);
+  const reflectors = new Map(reflectorRows.map((r) => [r.id, r]));
+  const latest = latestBy(installations, (i) => i.siteId);
+  const latestByReflector = latestBy(installations, (i) => i.reflectorId);
+  const liveReflectorsBySite = new Map<string, ReflectorRecord[]>();
+  for (const r of reflectorRows) {
+    if (r.deletedAtMs !== null) continue;
+    liveReflectorsBySite.set(r.siteId, [...(liveReflectorsBySite.get(r.siteId) ?? []), r]);
+  }
   const features = sites
     .filter((s) => s.deletedAtMs === null)
     .sort((a, b) => a.code.localeCompare(b.code, undefined, { numeric: true }))
     .map((s) => {
       const inst = latest.get(s.id);
-      return siteFeature(s, inst, inst ? reflectors.get(inst.reflectorId) : undefined);
+      const siteReflectors = (liveReflectorsBySite.get(s.id) ?? []).sort((a, b) => a.label.localeCompare(b.label, undefined, { numeric: true }));
+      return siteFeature(s, inst, inst ? reflectors.get(inst.reflectorId) : undefined, { reflectors: siteReflectors, latestByReflector, geometries });
     });
   return {
     type: 'FeatureCollection',
@@ -87,17 +157,18 @@ function sitesToGeoJson(
     glintmark: {
       exportedAtUtc: new Date(nowMs).toISOString(),
       azimuths: 'degrees clockwise from true north, [0, 360)',
-      heights: 'metres above the WGS84 ellipsoid',
+      heights: 'metres above the WGS84 ellipsoid (two coordinates and height_ell_m null: unknown; height_msl_m: above mean sea level)',
+      rounding: 'latitude/longitude 8 decimals, heights and edges 3 (mm), accuracies 2 (cm), angles 2 (0.01 degree), loss 2 (0.01 dB)',
     },
   };
 }
 
 /** Read sites, installations and reflectors in one transaction and build the collection. */
 export async function exportSitesGeoJson(db: GlintmarkDb, nowMs = Date.now()): Promise<SitesFeatureCollection> {
-  const [sites, installations, reflectors] = await db.transaction('r', ['sites', 'installations', 'reflectors'], () =>
-    Promise.all([db.sites.toArray(), db.installations.toArray(), db.reflectors.toArray()]),
+  const [sites, installations, reflectors, geometries] = await db.transaction('r', ['sites', 'installations', 'reflectors', 'geometries'], () =>
+    Promise.all([db.sites.toArray(), db.installations.toArray(), db.reflectors.toArray(), db.geometries.toArray()]),
   );
-  return sitesToGeoJson(sites, installations, new Map(reflectors.map((r) => [r.id, r])), nowMs);
+  return sitesToGeoJson(sites, installations, reflectors, new Map(geometries.map((g) => [g.id, g])), nowMs);
 }
 
 /** Names of OGC CRS84 (WGS84 longitude, latitude; CRS84h adds ellipsoidal height): what RFC 7946 §4 coordinates are. */

@@ -1,20 +1,26 @@
 /**
  * CSV exports of installations, inspections and sites (live rows only; ids kept so rows can be traced back).
  * Column names carry units; azimuths are degrees clockwise from true north in [0, 360); times are
- * ISO 8601 UTC; lists (geometry ids, crew) are joined with "; ". A text cell that a spreadsheet would run as a
- * formula (starting with =, +, -, @, TAB or CR) is prefixed with a quote (core/text/csv.ts protectCsvCell); the
- * site import removes it again. Numbers are written as numbers.
+ * ISO 8601 UTC; lists (geometry ids, crew) are joined with "; ". Numbers are rounded as rounding.ts states.
+ * Each installation row stands alone: it names its reflector (label, shape, edge) and the geometries it serves
+ * (satellite, direction, incidence, heading, look: lists in geometry_ids order), and its azimuth method as the
+ * screen shows it. A text cell that a spreadsheet would run as a formula (starting with =, +, -, @, TAB or CR) is
+ * prefixed with a quote (core/text/csv.ts protectCsvCell); the site import removes it again.
  */
 import type { GlintmarkDb } from '../db.ts';
-import type { InspectionRecord, InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';
+import type { GeometryRecord, InspectionRecord, InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';
+import { AZIMUTH_METHOD_LABELS } from '../words.ts';
 import { toCsv, type CsvValue } from '../../core/text/csv.ts';
 import { isoUtc } from '../../core/time.ts';
+import { rounded } from './rounding.ts';
 
 export const INSTALLATION_COLUMNS = [
   'installation_id', 'site_id', 'site_code', 'reflector_id', 'reflector_label', 'installed_at_utc',
   'planned_azimuth_deg', 'planned_tilt_deg', 'measured_azimuth_deg', 'measured_tilt_deg', 'measured_roll_deg',
   'azimuth_method', 'declination_deg', 'declination_model', 'fix_lat_deg', 'fix_lon_deg', 'fix_accuracy_m', 'fix_at_utc',
   'predicted_loss_db', 'geometry_ids', 'crew', 'photo_count', 'notes', 'rev', 'updated_at_utc', 'demo',
+  'site_name', 'reflector_shape', 'reflector_edge_m', 'azimuth_method_label',
+  'geometry_satellites', 'geometry_directions', 'geometry_incidence_deg', 'geometry_heading_deg', 'geometry_look',
 ] as const;
 
 export const INSPECTION_COLUMNS = [
@@ -23,26 +29,42 @@ export const INSPECTION_COLUMNS = [
   'remeasured_azimuth_deg', 'remeasured_tilt_deg', 'remeasured_roll_deg', 'crew', 'photo_count', 'notes', 'rev', 'updated_at_utc', 'demo',
 ] as const;
 
-/** Readable by previewSiteImport (which also accepts the plainer latitude/longitude/height_m names). */
+/**
+ * The site CSV header set (siteFile.ts), canonical names: read back by the app's import and by `plan --sites`.
+ * Heights: height_m above the WGS84 ellipsoid, empty when unknown; height_msl_m only when just that is known.
+ */
 export const SITE_COLUMNS = [
-  'code', 'name', 'latitude_deg', 'longitude_deg', 'height_ell_m', 'position_source', 'position_accuracy_m',
+  'code', 'name', 'latitude', 'longitude', 'height_m', 'height_msl_m', 'position_source', 'position_accuracy_m',
   'reference_frame', 'frame_epoch', 'notes', 'site_id', 'updated_at_utc', 'demo',
 ] as const;
 
 interface Lookups {
   sites: ReadonlyMap<string, SiteRecord>;
   reflectors: ReadonlyMap<string, ReflectorRecord>;
+  geometries: ReadonlyMap<string, GeometryRecord>;
 }
+
+const angle = (x: number | null | undefined) => rounded(x, 'angleDeg');
+const list = (xs: readonly CsvValue[]) => xs.map((x) => (x === null || x === undefined ? '' : String(x))).join('; ');
 
 function installationsToCsv(rows: readonly InstallationRecord[], l: Lookups): string {
   return toCsv(
     INSTALLATION_COLUMNS,
-    rows.map((i): CsvValue[] => [
-      i.id, i.siteId, l.sites.get(i.siteId)?.code, i.reflectorId, l.reflectors.get(i.reflectorId)?.label, isoUtc(i.installedAtMs),
-      i.plannedAzimuthDeg, i.plannedTiltDeg, i.measuredAzimuthDeg, i.measuredTiltDeg, i.measuredRollDeg,
-      i.azimuthMethod, i.declinationDeg, i.declinationModel, i.fix?.latDeg, i.fix?.lonDeg, i.fix?.accuracyM, isoUtc(i.fix?.atMs),
-      i.predictedLossDb, i.geometryIds.join('; '), i.crew.join('; '), i.photoIds.length, i.notes, i.rev, isoUtc(i.updatedAtMs), i.demo,
-    ]),
+    rows.map((i): CsvValue[] => {
+      const site = l.sites.get(i.siteId);
+      const r = l.reflectors.get(i.reflectorId);
+      const geos = i.geometryIds.map((id) => l.geometries.get(id));
+      return [
+        i.id, i.siteId, site?.code, i.reflectorId, r?.label, isoUtc(i.installedAtMs),
+        angle(i.plannedAzimuthDeg), angle(i.plannedTiltDeg), angle(i.measuredAzimuthDeg), angle(i.measuredTiltDeg), angle(i.measuredRollDeg),
+        i.azimuthMethod, angle(i.declinationDeg), i.declinationModel, rounded(i.fix?.latDeg, 'latLonDeg'), rounded(i.fix?.lonDeg, 'latLonDeg'),
+        rounded(i.fix?.accuracyM, 'accuracyM'), isoUtc(i.fix?.atMs),
+        rounded(i.predictedLossDb, 'lossDb'), i.geometryIds.join('; '), i.crew.join('; '), i.photoIds.length, i.notes, i.rev, isoUtc(i.updatedAtMs), i.demo,
+        site?.name, r?.shape, rounded(r?.edgeM, 'lengthM'), AZIMUTH_METHOD_LABELS[i.azimuthMethod],
+        list(geos.map((g) => g?.satellite ?? (g ? 'typed geometry' : 'missing'))), list(geos.map((g) => g?.direction)),
+        list(geos.map((g) => angle(g?.incidenceDeg))), list(geos.map((g) => angle(g?.headingDeg))), list(geos.map((g) => g?.look)),
+      ];
+    }),
   );
 }
 
@@ -52,7 +74,7 @@ function inspectionsToCsv(rows: readonly InspectionRecord[], l: Lookups): string
     rows.map((x): CsvValue[] => [
       x.id, x.siteId, l.sites.get(x.siteId)?.code, x.reflectorId, l.reflectors.get(x.reflectorId)?.label, isoUtc(x.inspectedAtMs),
       x.checklist.debris, x.checklist.standingWater, x.checklist.snowIce, x.checklist.vegetation, x.checklist.damage, x.checklist.movement,
-      x.remeasured?.azimuthDeg, x.remeasured?.tiltDeg, x.remeasured?.rollDeg, x.crew.join('; '), x.photoIds.length, x.notes, x.rev,
+      angle(x.remeasured?.azimuthDeg), angle(x.remeasured?.tiltDeg), angle(x.remeasured?.rollDeg), x.crew.join('; '), x.photoIds.length, x.notes, x.rev,
       isoUtc(x.updatedAtMs), x.demo,
     ]),
   );
@@ -62,7 +84,8 @@ function sitesToCsv(rows: readonly SiteRecord[]): string {
   return toCsv(
     SITE_COLUMNS,
     rows.map((s): CsvValue[] => [
-      s.code, s.name, s.latDeg, s.lonDeg, s.heightEllM, s.positionSource, s.positionAccuracyM, s.referenceFrame, s.frameEpoch,
+      s.code, s.name, rounded(s.latDeg, 'latLonDeg'), rounded(s.lonDeg, 'latLonDeg'), rounded(s.heightEllM, 'lengthM'), rounded(s.heightMslM, 'lengthM'),
+      s.positionSource, rounded(s.positionAccuracyM, 'accuracyM'), s.referenceFrame, rounded(s.frameEpoch, 'epochYear'),
       s.notes, s.id, isoUtc(s.updatedAtMs), s.demo,
     ]),
   );
@@ -73,9 +96,9 @@ const byId = <T extends { id: string }>(rows: T[]) => new Map(rows.map((r) => [r
 
 /** The rows of `table` with the site and reflector lookups, read in one consistent transaction. */
 async function withLookups<T>(db: GlintmarkDb, table: 'installations' | 'inspections'): Promise<[T[], Lookups]> {
-  return db.transaction('r', [table, 'sites', 'reflectors'], async () => {
-    const [rows, sites, reflectors] = await Promise.all([db.table<T>(table).toArray(), db.sites.toArray(), db.reflectors.toArray()]);
-    return [rows, { sites: byId(sites), reflectors: byId(reflectors) }];
+  return db.transaction('r', [table, 'sites', 'reflectors', 'geometries'], async () => {
+    const [rows, sites, reflectors, geometries] = await Promise.all([db.table<T>(table).toArray(), db.sites.toArray(), db.reflectors.toArray(), db.geometries.toArray()]);
+    return [rows, { sites: byId(sites), reflectors: byId(reflectors), geometries: byId(geometries) }];
   });
 }
 

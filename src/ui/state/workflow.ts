@@ -27,7 +27,10 @@ export interface SiteInput {
   name?: string;
   latDeg: number;
   lonDeg: number;
+  /** For geometry; when the logbook site's ellipsoidal height is unknown this is its best stand-in (see siteHeightForGeometryM). */
   heightEllM: number;
+  /** false when heightEllM stands in for an unknown or sea-level height. */
+  heightKnown?: false;
   accuracyM?: number;
   source: 'gnss-phone' | 'typed' | 'logbook';
 }

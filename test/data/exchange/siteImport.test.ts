@@ -36,33 +36,33 @@ describe('site import from CSV', () => {
       'GONE-1,code of a deleted site is free,52,-1,10',
       'A-5,too few fields,52',
       ',no code,52,-1,10',
-      'A-6,no height,52,-1,',
+      'A-6,no height: unknown to be surveyed,52,-1,',
       '"A-7","notes, ""quoted""",52,-1,10',
     ].join('\r\n');
     const before = await dumpDb(db());
     const p = await previewSiteImport(db(), text, 'csv');
     expect(await dumpDb(db())).toEqual(before);
-    expect(p.accepted.map((a) => [a.row, a.fields.code])).toEqual([[2, 'A-1'], [8, 'GONE-1'], [12, 'A-7']]);
+    expect(p.accepted.map((a) => [a.row, a.fields.code])).toEqual([[2, 'A-1'], [8, 'GONE-1'], [11, 'A-6'], [12, 'A-7']]);
+    expect(p.accepted.find((a) => a.fields.code === 'A-6')?.fields.heightEllM).toBeNull();
     expect(p.rejected).toEqual([
       { row: 3, reason: 'latitude must be in [-90, 90] degrees, got 95' },
       { row: 4, reason: 'latitude "abc" is not a number' },
-      { row: 5, reason: 'latitude "52,5" is not a number (use a dot as the decimal separator)' },
+      { row: 5, reason: 'latitude "52,5" is not a number: this file separates fields with commas, so decimals must use a dot (52.5); or save the file with semicolons between fields' },
       { row: 6, reason: 'code a-1 repeats the code of line 2' },
       { row: 7, reason: 'code old-1 is already used by a site on this device' },
-      { row: 9, reason: 'has 3 fields but the header has 5' },
+      { row: 9, reason: 'has 3 fields but the header has 5 (fields are separated by commas)' },
       { row: 10, reason: 'site code must not be empty' },
-      { row: 11, reason: 'height is empty' },
     ]);
   });
 
   it('reports a missing column, and files that are not CSV at all', async () => {
     expect((await previewSiteImport(db(), 'code,name,lat\nA,b,1\n', 'csv')).rejected).toEqual([
-      { row: 1, reason: 'missing column "longitude", "height_m"; the header must name code, latitude, longitude and height_m' },
+      { row: 1, reason: 'missing column longitude, height_m; the header (fields separated by commas) must name code, latitude, longitude, height_m' },
     ]);
     expect((await previewSiteImport(db(), '{"type":"FeatureCollection"}', 'csv')).rejected[0].reason).toBe('not a CSV file: it looks like JSON (import it as GeoJSON)');
     expect((await previewSiteImport(db(), 'PK\u0003\u0004\u0000\u0000', 'csv')).rejected[0].reason).toBe('not a CSV file: it is not text');
     expect((await previewSiteImport(db(), 'code,latitude\n"MF-01,52\n', 'csv')).rejected[0]).toEqual({ row: 2, reason: 'not a valid CSV file: line 2: a quoted field is never closed (the file may be cut short)' });
-    expect((await previewSiteImport(db(), '', 'csv')).rejected[0].reason).toBe('the file is empty');
+    expect((await previewSiteImport(db(), '', 'csv')).rejected[0].reason).toBe('the file is empty; expected a header such as code,latitude,longitude,height_m');
   });
 
   it('keeps imported text as plain strings (no HTML interpretation)', async () => {
@@ -116,12 +116,12 @@ describe('site import from GeoJSON', () => {
     ]), 'geojson');
     expect(p.accepted.map((a) => [a.row, a.fields.code, a.fields.lonDeg, a.fields.latDeg, a.fields.heightEllM])).toEqual([
       [0, 'G-1', -1.25, 52.5, 60],
+      [1, 'G-2', -1.25, 52.5, null],
       [2, 'G-3', -1.25, 52.5, 12],
       [4, 'G-5', -159.5, 52.5, 1],
     ]);
     expect(p.accepted[0].fields.notes).toBe('colour: red');
     expect(p.rejected).toEqual([
-      { row: 1, reason: 'no height: add a third coordinate or a height_ell_m property' },
       { row: 3, reason: 'has no Point geometry (found "LineString")' },
       { row: 5, reason: 'latitude must be in [-90, 90] degrees, got 95' },
       { row: 6, reason: 'Point coordinates must be 2 or 3 numbers [longitude, latitude, height]' },

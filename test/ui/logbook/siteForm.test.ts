@@ -13,6 +13,7 @@ import {
   siteFormFromWorkflow,
   siteFormWithFix,
   siteInputFromRecord,
+  sitePatch,
   type SiteForm,
 } from '../../../src/ui/pages/logbook/siteForm.ts';
 import { addSite, BY, T0_MS, useTestDb } from './helpers.ts';
@@ -21,6 +22,23 @@ const GOOD: SiteForm = { ...EMPTY_SITE_FORM, code: 'MF-01', name: 'Marrowby Fen'
 
 describe('site form', () => {
   const db = useTestDb();
+
+  it('a fix without altitude no longer blocks saving: the height becomes unknown, stored as null', () => {
+    const fix: Fix = { latDeg: 52.5, lonDeg: -1.25, heightEllM: null, horizontalAccuracyM: 4, timeMs: T0_MS };
+    const f = siteFormWithFix({ ...EMPTY_SITE_FORM, code: 'GPS-1' }, fix);
+    expect(f.heightRef).toBe('unknown');
+    const p = parseSiteForm(f);
+    expect(p.errors).toEqual({});
+    expect(p.fields?.heightEllM).toBeNull();
+    expect(p.fields && 'heightMslM' in p.fields).toBe(false);
+  });
+  it('a sea-level altitude (iOS) is kept as such, never as ellipsoidal, and an edit back to ellipsoidal clears it', () => {
+    const fix: Fix = { latDeg: 52.5, lonDeg: -1.25, heightEllM: null, heightMslM: 12.34, horizontalAccuracyM: 4, timeMs: T0_MS };
+    const p = parseSiteForm(siteFormWithFix({ ...EMPTY_SITE_FORM, code: 'GPS-2' }, fix));
+    expect(p.fields).toMatchObject({ heightEllM: null, heightMslM: 12.34 });
+    const after = parseSiteForm({ ...siteFormWithFix({ ...EMPTY_SITE_FORM, code: 'GPS-2' }, fix), heightRef: 'ellipsoidal', heightEllM: '60.1' }).fields!;
+    expect(sitePatch(p.fields!, after)).toEqual({ heightEllM: 60.1, heightMslM: null });
+  });
 
   it('turns typed text into site fields with units, unknown accuracy and epoch as null', () => {
     const p = parseSiteForm({ ...GOOD, code: ' MF-01 ', frameEpoch: '2027.5', referenceFrame: 'ITRF2020' });
@@ -45,7 +63,7 @@ describe('site form', () => {
     expect(p.errors.code).toBe('Site code is empty');
     expect(p.errors.latDeg).toBe('Latitude must be in [-90, 90]°, got 95');
     expect(p.errors.lonDeg).toMatch(/Longitude must be a number, got "abc"/);
-    expect(p.errors.heightEllM).toBe('Ellipsoidal height is empty');
+    expect(p.errors.heightEllM).toBe('Ellipsoidal height is empty: type it, or choose “Unknown, to be surveyed”');
     expect(p.errors.accuracyM).toMatch(/Position accuracy must be in \[0, 1000000\] m, got -1/);
     expect(p.errors.frameEpoch).toMatch(/Frame epoch must be in \[1900, 2200\]/);
     expect(p.errors.referenceFrame).toBe('Reference frame is empty');

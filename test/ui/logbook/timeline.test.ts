@@ -57,3 +57,19 @@ describe('site timeline', () => {
     expect(valueText('apex', { latDeg: 1.5, lonDeg: 2, heightEllM: 3 })).toBe('latDeg 1.5, lonDeg 2, heightEllM 3');
   });
 });
+
+describe('history shows a word-level difference of edited text', () => {
+  it('an edited note carries its changed words, other fields none', async () => {
+    const { textDiffOf } = await import('../../../src/ui/pages/logbook/timeline.ts');
+    const d = textDiffOf({ field: 'notes', before: 'bolts checked: drain clear', after: 'bolts checked twice: drain clear' });
+    expect(d?.label).toBe('notes');
+    // Worked by hand: "checked:" is a different word from "checked" followed by "twice:".
+    expect(d?.segments).toEqual([
+      { kind: 'same', text: 'bolts ' },
+      { kind: 'removed', text: 'checked:' },
+      { kind: 'added', text: 'checked twice:' },
+      { kind: 'same', text: ' drain clear' },
+    ]);
+    expect(textDiffOf({ field: 'measuredAzimuthDeg', before: 100.2, after: 101 })).toBeNull();
+  });
+});

@@ -182,6 +182,12 @@ export function NewInstallation(props: { onSaved: () => void }) {
         </fieldset>
       ) : null}
       <PendingPhotos files={photos} onChange={(role, f) => setPhotos((p) => ({ ...p, [role]: f }))} errors={{}} />
+      {!photos.boresight ? (
+        <p className="gm-warn" data-testid="no-boresight-photo">
+          ⚠ No boresight photo yet. You can save without it, but a photo along the boresight is how the office checks the aim later: take it
+          before you leave the reflector if you can.
+        </p>
+      ) : null}
       <div className="gm-lb-actions">
         <SaveButton busy={busy} onSave={() => void save()} testId="save-installation">
           Save installation

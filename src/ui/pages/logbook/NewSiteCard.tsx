@@ -1,9 +1,11 @@
 /**
  * The "New site" form, checked in place. "Saved on this device" appears only after siteRepo.create resolved;
- * a refused save (duplicate code, storage full …) keeps the form and says why beside it.
+ * a refused save (duplicate code, storage full …) keeps the form and says why beside it. Saved from the Logbook, the
+ * phone goes straight to the new site, whose page shows the confirmation at the top and offers to add its reflector;
+ * with `onSaved` (inside another form) the confirmation appears beside the Save button instead.
  */
 import { useState } from 'react';
-import { Link } from 'react-router-dom';
+import { Link, useHistory } from 'react-router-dom';
 import { siteRepo, useGlintmarkDb, withReopen, type SiteRecord } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
@@ -19,6 +21,7 @@ import { SafetyNotice } from '../../components/SafetyNotice.tsx';
 export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecord) => void; title?: string }) {
   const db = useGlintmarkDb();
   const st = useStore(settings);
+  const nav = useHistory();
   const [form, setForm] = useState<SiteForm>(() => {
     if (props.initial) return props.initial;
     const s = workflow.get().site;
@@ -48,10 +51,14 @@ export function NewSiteCard(props: { initial?: SiteForm; onSaved?: (s: SiteRecor
     await run(
       async () => {
         const rec = await withReopen(db, () => siteRepo.create(db, fields, { by: writtenBy(st.crewName) }));
+        if (!props.onSaved) {
+          nav.push(`/logbook/site/${rec.id}?saved=new`);
+          return;
+        }
         setSaved(rec);
         setForm(EMPTY_SITE_FORM);
         setTried(false);
-        props.onSaved?.(rec);
+        props.onSaved(rec);
       },
       (e) => {
         if (e instanceof Error && e.name === 'DuplicateCodeError') setCodeTaken(fields.code);

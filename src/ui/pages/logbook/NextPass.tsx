@@ -1,5 +1,5 @@
 import { useEffect, useState } from 'react';
-import type { GeometryRecord, ReflectorRecord, SiteRecord } from '../../../data/index.ts';
+import { siteHeightForGeometryM, type GeometryRecord, type ReflectorRecord, type SiteRecord } from '../../../data/index.ts';
 import { fmtUtcAndSite, siteTimeZone } from '../../siteTime.ts';
 import { NEXT_PASS_DAYS, type SiteNextPasses } from './nextPass.ts';
 
@@ -10,7 +10,8 @@ const passWords = (p: { satellite: string; direction: string; incidenceDeg: numb
 
 /** The next pass of each track the site's reflectors serve (marked with the reflector), computed on the phone. */
 export function NextPass(props: { site: SiteRecord; geometries: GeometryRecord[]; reflectors: ReflectorRecord[] }) {
-  const { latDeg, lonDeg, heightEllM, demo } = props.site;
+  const { latDeg, lonDeg, demo } = props.site;
+  const heightEllM = siteHeightForGeometryM(props.site);
   // Plain keys of what the search needs: it reruns only when these change, not on every record edit of the site.
   const gKey = JSON.stringify(props.geometries.map((g) => ({ reflectorId: g.reflectorId, incidenceDeg: g.incidenceDeg, direction: g.direction, satellite: g.satellite, look: g.look, deletedAtMs: g.deletedAtMs })));
   const rKey = JSON.stringify(props.reflectors.map((r) => ({ id: r.id, label: r.label, deletedAtMs: r.deletedAtMs })));

@@ -1,7 +1,9 @@
 /** The site fields (new site, edit site, site from the plan): position typed or from the phone's GNSS. */
+import { useState } from 'react';
 import { Segmented } from '../../components/fields.tsx';
+import type { Fix } from '../../../sensors/index.ts';
 import { formFields } from './inputs.tsx';
-import { editSiteForm, siteFormWithFix, type SiteForm } from './siteForm.ts';
+import { editSiteForm, heightLabel, siteFormWithFix, type HeightRef, type SiteForm } from './siteForm.ts';
 import { useGpsFix } from './useGpsFix.ts';
 import type { FieldErrors } from './parse.ts';
 
@@ -11,14 +13,35 @@ const SOURCES = [
   { value: 'gnss-survey', label: 'Survey GNSS' },
 ] as const;
 
+const HEIGHT_REFS: readonly { value: HeightRef; label: string }[] = [
+  { value: 'ellipsoidal', label: 'Ellipsoidal' },
+  { value: 'sea-level', label: 'Sea level' },
+  { value: 'unknown', label: 'Unknown' },
+];
+
+/** What the phone's fix said about height, in words: which reference the platform reports, or that it gave none. */
+export function fixHeightWords(fix: Fix): string {
+  if (fix.heightEllM !== null) {
+    return `Height from the phone: ${fix.heightEllM.toFixed(1)} m above the WGS84 ellipsoid (what this platform reports; phone heights are often 10–30 m off, so survey it for precise work).`;
+  }
+  if (fix.heightMslM != null) {
+    return `Height from the phone: ${fix.heightMslM.toFixed(1)} m above mean sea level (this platform reports sea-level altitude, not ellipsoidal; kept as a sea-level height). Choose Unknown instead to have it surveyed.`;
+  }
+  return 'This fix has no altitude: the height is marked unknown, to be surveyed. Type it if you know it (ellipsoidal or above sea level).';
+}
+
 export function SiteFormFields(props: { form: SiteForm; setForm: (f: SiteForm) => void; errors: FieldErrors<keyof SiteForm> }) {
   const { form, errors } = props;
   const gps = useGpsFix();
   const set = (patch: Partial<SiteForm>) => props.setForm(editSiteForm(form, patch));
   const f = formFields(form, set, errors);
+  const [heightNote, setHeightNote] = useState<string | null>(null);
   const fromGps = async () => {
     const fix = await gps.get();
-    if (fix) props.setForm(siteFormWithFix(form, fix));
+    if (fix) {
+      props.setForm(siteFormWithFix(form, fix));
+      setHeightNote(fixHeightWords(fix));
+    }
   };
   const sourceOptions = form.positionSource === 'imported' ? [...SOURCES, { value: 'imported' as const, label: 'Imported' }] : SOURCES;
   return (
@@ -45,9 +68,28 @@ export function SiteFormFields(props: { form: SiteForm; setForm: (f: SiteForm) =
       <div className="gm-row">
         {f.num('latDeg', 'Latitude', '° N+', 'site-lat')}
         {f.num('lonDeg', 'Longitude', '° E+', 'site-lon')}
-        {f.num('heightEllM', 'Ellipsoidal height', 'm', 'site-height')}
+        {form.heightRef !== 'unknown' ? f.num('heightEllM', heightLabel(form.heightRef), 'm', 'site-height') : null}
         {f.num('accuracyM', 'Horizontal accuracy', 'm, empty = unknown', 'site-accuracy')}
       </div>
+      <div className="gm-lb-seg-wrap">
+        <Segmented
+          label="Height reference"
+          value={form.heightRef}
+          options={HEIGHT_REFS}
+          onChange={(v) => set({ heightRef: v, ...(v === 'unknown' ? { heightEllM: '' } : {}) })}
+          testId="site-height-ref"
+        />
+      </div>
+      {form.heightRef === 'unknown' ? (
+        <p className="gm-note" data-testid="site-height-unknown">
+          Height unknown, to be surveyed: the site is saved without one and shows “unknown”; pass, sun and declination computations use 0 m meanwhile (under 0.1° of difference for sites below 1,000 m).
+        </p>
+      ) : null}
+      {heightNote ? (
+        <p className="gm-note" data-testid="site-height-note">
+          {heightNote}
+        </p>
+      ) : null}
       <div className="gm-lb-seg-wrap">
         <Segmented label="Position source" value={form.positionSource} options={sourceOptions} onChange={(v) => set({ positionSource: v })} testId="site-source" />
       </div>

@@ -3,8 +3,8 @@
  * timeline; "Use this site" hands it to Plan or Passes; delete is soft, with Undo.
  */
 import { useEffect, useState } from 'react';
-import { useHistory, useParams } from 'react-router-dom';
-import { siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
+import { useHistory, useLocation, useParams } from 'react-router-dom';
+import { siteChildCounts, siteRepo, useGlintmarkDb, useSiteDetail, withReopen, type SiteDetail, type SiteRecord } from '../../../data/index.ts';
 import { siteTimeZone } from '../../siteTime.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
@@ -14,14 +14,15 @@ import { BackLink, DemoBadge, ErrorNote, SaveButton, SavedNote } from './bits.ts
 import { shownErrors } from './inputs.tsx';
 import { LogbookShell } from './LogbookShell.tsx';
 import { NextPass } from './NextPass.tsx';
-import { changedFields, parseSiteForm, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
+import { parseSiteForm, sitePatch, siteFormFromRecord, siteInputFromRecord, withoutMeta, type SiteForm } from './siteForm.ts';
 import { SiteFormFields } from './SiteFormFields.tsx';
 import { GeometryTable, InspectionList, InstallationList, ReflectorSection, SiteDetails } from './SiteSections.tsx';
 import { Timeline } from './Timeline.tsx';
+import { DeletedRecords } from './DeletedRecords.tsx';
 import { loadSiteTimeline, type TimelineEntry } from './timeline.ts';
 import { useSaveState } from './useSaveState.ts';
 import { useToggleDeleted } from './useToggleDeleted.ts';
-import { writtenBy } from './words.ts';
+import { siteChildWords, writtenBy } from './words.ts';
 
 function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void }) {
   const db = useGlintmarkDb();
@@ -37,7 +38,7 @@ function SiteEditor(props: { site: SiteRecord; onDone: (saved: boolean) => void 
       setError('Check the marked fields.');
       return;
     }
-    const patch = changedFields(base.fields, parsed.fields);
+    const patch = sitePatch(base.fields, parsed.fields);
     const expectedRev = onto === 'current' ? props.site.rev : base.rev;
     await run(async () => {
       await withReopen(db, () => siteRepo.update(db, props.site.id, patch, { by: writtenBy(st.crewName), expectedRev }));
@@ -66,6 +67,8 @@ function SiteBody(props: { detail: SiteDetail }) {
   const db = useGlintmarkDb();
   const st = useStore(settings);
   const nav = useHistory();
+  const justCreated = new URLSearchParams(useLocation().search).get('saved') === 'new';
+  const [addingReflector, setAddingReflector] = useState(0);
   const [editing, setEditing] = useState(false);
   const [saved, setSaved] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -88,6 +91,14 @@ function SiteBody(props: { detail: SiteDetail }) {
     nav.push(path);
   };
   const toggleDeleted = useToggleDeleted(siteRepo, site, writtenBy(st.crewName), `Site ${site.code}`, { setSaved, setError });
+  const [confirming, setConfirming] = useState<string | null>(null);
+  /** Ask first when the site has children, naming how many of each go with it; a bare site is deleted at once (Undo). */
+  const askDelete = async () => {
+    const n = await siteChildCounts(db, site.id);
+    const parts = siteChildWords(n);
+    if (parts.length === 0) await toggleDeleted();
+    else setConfirming(`Delete site ${site.code} with ${parts.join(', ')}? They stay restorable from “Deleted records” until removed for good.`);
+  };
 
   return (
     <>
@@ -96,6 +107,26 @@ function SiteBody(props: { detail: SiteDetail }) {
         {site.code} <DemoBadge demo={site.demo} />
       </h1>
       {site.name ? <p className="gm-lb-text">{site.name}</p> : null}
+      {justCreated && !deleted ? (
+        <div className="gm-card" data-testid="site-created">
+          <SavedNote testId="saved">{`Site ${site.code} saved on this device`}</SavedNote>
+          {reflectors.length === 0 ? (
+            <div className="gm-lb-actions">
+              <button
+                type="button"
+                className="gm-btn gm-primary"
+                data-testid="add-its-reflector"
+                onClick={() => {
+                  setAddingReflector((n) => n + 1);
+                  requestAnimationFrame(() => document.getElementById('refl-h')?.scrollIntoView({ block: 'start' }));
+                }}
+              >
+                Add its reflector
+              </button>
+            </div>
+          ) : null}
+        </div>
+      ) : null}
       {deleted ? (
         <DeletedBanner testId="site-deleted" onUndo={() => void toggleDeleted()}>
           <b>✕ This site is deleted</b> (with the reflectors, installations and inspections deleted with it). Nothing is lost until you remove it
@@ -135,14 +166,35 @@ function SiteBody(props: { detail: SiteDetail }) {
             <button type="button" className="gm-btn" onClick={() => setEditing(true)} data-testid="edit-site">
               Edit site
             </button>
-            <button type="button" className="gm-btn" onClick={() => void toggleDeleted()} data-testid="delete-site">
+            <button type="button" className="gm-btn" onClick={() => void askDelete()} data-testid="delete-site">
               Delete site
             </button>
           </div>
         ) : null}
+        {confirming && !deleted ? (
+          <div className="gm-card" role="alertdialog" aria-label="Confirm deleting the site" data-testid="confirm-delete-site">
+            <p>{confirming}</p>
+            <div className="gm-lb-actions">
+              <button
+                type="button"
+                className="gm-btn gm-primary"
+                data-testid="confirm-delete-site-yes"
+                onClick={() => {
+                  setConfirming(null);
+                  void toggleDeleted();
+                }}
+              >
+                Delete all
+              </button>
+              <button type="button" className="gm-btn" onClick={() => setConfirming(null)} data-testid="confirm-delete-site-no">
+                Keep the site
+              </button>
+            </div>
+          </div>
+        ) : null}
       </section>
 
-      <ReflectorSection site={site} reflectors={reflectors} />
+      <ReflectorSection key={addingReflector} site={site} reflectors={reflectors} startAdding={addingReflector > 0} />
       <section className="gm-section" aria-labelledby="geo-h">
         <h2 id="geo-h">Planned geometries ({geometries.length})</h2>
         <GeometryTable geometries={geometries} reflectors={reflectors} />
@@ -155,6 +207,7 @@ function SiteBody(props: { detail: SiteDetail }) {
         <h2 id="insp-h">Inspections ({inspections.length})</h2>
         <InspectionList inspections={inspections} reflectors={reflectors} zone={zone} />
       </section>
+      {!deleted ? <DeletedRecords siteId={site.id} title="Deleted on this site" /> : null}
       <section className="gm-section" aria-labelledby="hist-h">
         <h2 id="hist-h">History</h2>
         {timeline === null ? <p>Loading history…</p> : <Timeline entries={timeline} />}

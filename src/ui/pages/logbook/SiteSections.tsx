@@ -12,7 +12,7 @@ import { checklistSummary } from './inspectionForm.ts';
 import { ReflectorEditor } from './ReflectorEditor.tsx';
 import { reflectorFormFromPlan } from './reflectorForm.ts';
 import { siteInputFromRecord } from './siteForm.ts';
-import { CHECKLIST_LABELS, fmtUtc, METHOD_WORDS, POSITION_SOURCE_WORDS } from './words.ts';
+import { CHECKLIST_LABELS, fmtUtc, METHOD_WORDS, POSITION_SOURCE_WORDS, siteHeightWords } from './words.ts';
 
 export function SiteDetails(props: { site: SiteRecord }) {
   const s = props.site;
@@ -22,8 +22,8 @@ export function SiteDetails(props: { site: SiteRecord }) {
       <dd data-testid="site-lat-value">{fmtNum(s.latDeg, 7)}</dd>
       <dt>Longitude (°)</dt>
       <dd data-testid="site-lon-value">{fmtNum(s.lonDeg, 7)}</dd>
-      <dt>Ellipsoidal height (m)</dt>
-      <dd>{fmtNum(s.heightEllM, 2)}</dd>
+      <dt>Height</dt>
+      <dd data-testid="site-height-value">{siteHeightWords(s)}</dd>
       <dt>Position source</dt>
       <dd>{POSITION_SOURCE_WORDS[s.positionSource]}</dd>
       <dt>Horizontal accuracy (m)</dt>
@@ -90,9 +90,9 @@ function ReflectorCard(props: { r: ReflectorRecord; site: SiteRecord; onEdit: ()
   );
 }
 
-export function ReflectorSection(props: { site: SiteRecord; reflectors: ReflectorRecord[] }) {
+export function ReflectorSection(props: { site: SiteRecord; reflectors: ReflectorRecord[]; startAdding?: boolean }) {
   const wf = useStore(workflow);
-  const [editing, setEditing] = useState<string | 'new' | null>(null);
+  const [editing, setEditing] = useState<string | 'new' | null>(props.startAdding ? 'new' : null);
   const live = props.site.deletedAtMs === null;
   return (
     <section className="gm-section" aria-labelledby="refl-h">

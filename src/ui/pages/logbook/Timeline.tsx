@@ -17,9 +17,30 @@ export function Timeline(props: { entries: readonly TimelineEntry[]; testId?: st
           </div>
           {e.details.length ? (
             <ul>
-              {e.details.map((d, i) => (
-                <li key={i}>{d}</li>
-              ))}
+              {e.details.map((d, i) => {
+                const diff = e.textDiffs[i];
+                if (!diff) return <li key={i}>{d}</li>;
+                return (
+                  <li key={i} data-testid="timeline-text-diff">
+                    {diff.label}:{' '}
+                    <span className="gm-lb-text">
+                      {diff.segments.map((s, k) =>
+                        s.kind === 'same' ? (
+                          <span key={k}>{s.text}</span>
+                        ) : s.kind === 'removed' ? (
+                          <del key={k} className="gm-diff-del" aria-label={`removed: ${s.text}`}>
+                            {s.text}
+                          </del>
+                        ) : (
+                          <ins key={k} className="gm-diff-ins" aria-label={`added: ${s.text}`}>
+                            {s.text}
+                          </ins>
+                        ),
+                      )}
+                    </span>
+                  </li>
+                );
+              })}
             </ul>
           ) : null}
           {e.alsoChanged.length ? <p className="gm-note">With it: {e.alsoChanged.join(', ')}.</p> : null}

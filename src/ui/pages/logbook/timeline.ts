@@ -4,6 +4,7 @@
  * (deleting a site deletes its reflectors …) are folded into the entry that started them. Pure, except
  * loadSiteTimeline, which reads the records through the repositories.
  */
+import { wordDiff, type DiffSegment } from '../../../core/text/wordDiff.ts';
 import {
   geometryRepo,
   history,
@@ -39,6 +40,11 @@ export interface TimelineEntry {
   title: string;
   /** One line per changed field: "measured azimuth (° true): 100.2 → 101.0". */
   details: string[];
+  /**
+   * Beside each detail: for edited text (notes, names …), the field's label and its word-level difference, so the
+   * screen shows what changed rather than two cut-off starts; null for other fields.
+   */
+  textDiffs: ({ label: string; segments: DiffSegment[] } | null)[];
   /** Records changed by the same action (cascade): "reflector A", … */
   alsoChanged: string[];
 }
@@ -117,6 +123,13 @@ export function valueText(field: string, v: unknown): string {
   return String(v);
 }
 
+/** The word-level difference of a text field's change (both sides text, at least one non-empty); null otherwise. */
+export function textDiffOf(c: FieldChange): { label: string; segments: DiffSegment[] } | null {
+  if (typeof c.before !== 'string' || typeof c.after !== 'string' || (c.before === '' && c.after === '')) return null;
+  if (c.field.endsWith('Id') || c.field === 'positionSource' || c.field === 'azimuthMethod' || c.field === 'shape' || c.field === 'look') return null;
+  return { label: FIELD_LABELS[c.field] ?? c.field, segments: wordDiff(c.before, c.after) };
+}
+
 /** "measured azimuth (° true): 100.2 → 101" */
 export function describeChange(c: FieldChange): string {
   return `${FIELD_LABELS[c.field] ?? c.field}: ${valueText(c.field, c.before)} → ${valueText(c.field, c.after)}`;
@@ -159,6 +172,7 @@ export function buildTimeline(sources: readonly TimelineSource[]): TimelineEntry
         rev: r.rev,
         title: titleOf(r, s.label),
         details: r.kind === 'update' ? r.changes.map(describeChange) : [],
+        textDiffs: r.kind === 'update' ? r.changes.map(textDiffOf) : [],
         alsoChanged: [],
       });
       seq.set(r.id, seq.size);

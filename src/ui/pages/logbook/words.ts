@@ -2,7 +2,15 @@
  * Words and number formats shared by the Logbook screens. Pure: no React, no storage. Every figure shown says its
  * unit; times are shown in UTC (the records store ms since 1970 UTC).
  */
-import type { AzimuthMethod, CheckState, ChecklistItem, PositionSource } from '../../../data/index.ts';
+import { AZIMUTH_METHOD_LABELS, siteHeightKind, type AzimuthMethod, type CheckState, type ChecklistItem, type PositionSource, type SiteFields } from '../../../data/index.ts';
+
+/** "61.20 m above the WGS84 ellipsoid" / "58.1 m above sea level (ellipsoidal height not known)" / "unknown, to be surveyed". */
+export function siteHeightWords(s: Pick<SiteFields, 'heightEllM' | 'heightMslM'>): string {
+  const kind = siteHeightKind(s);
+  if (kind === 'ellipsoidal') return `${s.heightEllM!.toFixed(2)} m above the WGS84 ellipsoid`;
+  if (kind === 'sea-level') return `${s.heightMslM!.toFixed(2)} m above sea level (ellipsoidal height not known)`;
+  return 'unknown, to be surveyed';
+}
 
 /** "2026-06-15 10:00 UTC" for an instant in ms since 1970; "—" for none. */
 export function fmtUtc(ms: number | null | undefined): string {
@@ -60,12 +68,7 @@ export const POSITION_SOURCE_WORDS: Record<PositionSource, string> = {
   imported: 'imported',
 };
 
-export const METHOD_WORDS: Record<AzimuthMethod, string> = {
-  'sun-shadow': 'sun shadow',
-  'reference-bearing': 'reference bearing',
-  compass: 'compass (with declination)',
-  'other-instrument': 'other instrument',
-};
+export const METHOD_WORDS: Record<AzimuthMethod, string> = AZIMUTH_METHOD_LABELS;
 
 export const CHECK_WORDS: Record<CheckState, string> = { ok: '✓ OK', issue: '⚠ Issue', 'not-checked': '– Not checked' };
 
@@ -108,3 +111,14 @@ export function writtenBy(settingsCrewName: string, crew: readonly string[] = []
 
 /** A photo role in words ("Along the boresight"); unknown roles as stored. */
 export const photoRoleLabel = (role: string): string => PHOTO_ROLE_WORDS[role] ?? role;
+
+/** "2 reflectors, 1 installation" for what a site delete takes with it (zero counts left out). */
+export function siteChildWords(n: { reflectors: number; geometries: number; installations: number; inspections: number }): string[] {
+  const w = (k: number, one: string, many: string) => (k === 0 ? [] : [`${k} ${k === 1 ? one : many}`]);
+  return [
+    ...w(n.reflectors, 'reflector', 'reflectors'),
+    ...w(n.installations, 'installation', 'installations'),
+    ...w(n.inspections, 'inspection', 'inspections'),
+    ...w(n.geometries, 'planned geometry', 'planned geometries'),
+  ];
+}

@@ -5,6 +5,7 @@ import { BackupReminder } from './BackupReminder.tsx';
 import { BackupSection } from './BackupSection.tsx';
 import { ConflictsSection } from './ConflictsSection.tsx';
 import { DemoSection } from './DemoSection.tsx';
+import { DeletedRecords } from '../logbook/DeletedRecords.tsx';
 import { ExchangeSection } from './ExchangeSection.tsx';
 import { PreferencesSection } from './PreferencesSection.tsx';
 import { StorageSection } from './StorageSection.tsx';
@@ -31,6 +32,7 @@ export function SettingsPage() {
           <StorageSection refreshKey={refreshKey} />
           <BackupSection onChanged={changed} />
           <ConflictsSection />
+          <DeletedRecords />
           <ExchangeSection onChanged={changed} />
           <DemoSection onChanged={changed} />
         </main>

@@ -2,7 +2,7 @@
  * The site-import preview as rows to show: every accepted site and every rejected row with its reason, in file
  * order. Values stay plain strings and numbers; the page renders them as text (never as HTML).
  */
-import type { SiteImportPreview } from '../../../data/index.ts';
+import type { SiteFields, SiteImportPreview } from '../../../data/index.ts';
 import { fmtNum } from '../../format.ts';
 
 export interface PreviewRow {
@@ -20,6 +20,8 @@ export interface PreviewRow {
 }
 
 const signed = (x: number, digits: number) => (x < 0 ? `−${fmtNum(-x, digits)}` : fmtNum(x, digits));
+const heightText = (f: SiteFields): string =>
+  f.heightEllM !== null ? `${signed(f.heightEllM, 2)} m` : f.heightMslM != null ? `${signed(f.heightMslM, 2)} m above sea level` : 'height unknown';
 
 /**
  * Where a rejection is. Row 0 is the whole file for CSV (lines start at 1); for GeoJSON it is also feature 0, so the
@@ -38,7 +40,7 @@ export function previewRows(p: SiteImportPreview): PreviewRow[] {
     status: 'accepted' as const,
     code: a.fields.code,
     name: a.fields.name,
-    position: `${signed(a.fields.latDeg, 5)}°, ${signed(a.fields.lonDeg, 5)}°, ${signed(a.fields.heightEllM, 2)} m`,
+    position: `${signed(a.fields.latDeg, 5)}°, ${signed(a.fields.lonDeg, 5)}°, ${heightText(a.fields)}`,
     reason: '',
   }));
   const rejected = p.rejected.map((r, i) => ({
