@@ -36,7 +36,8 @@ export function CaptureCard(props: CaptureCardProps) {
   const [message, setMessage] = useState<string | null>(null);
   const [manual, setManual] = useState<ManualForm>({ azimuthDeg: '', tiltDeg: '', rollDeg: '0' });
   const [manualTried, setManualTried] = useState(false);
-  const manualOut = buildManualCapture(manual, props.reflector, props.passes, Date.now());
+  // Only the field errors are shown while typing; the capture is stamped with the time of the tap (below).
+  const manualOut = buildManualCapture(manual, props.reflector, props.passes, 0);
 
   const capture = () => {
     const out = buildCapture({

@@ -3,7 +3,7 @@
  * restored on reopen; "Saved on this device" appears only after the record's write resolved, then the draft is
  * cleared and the crew moves on ("Next site") or looks at the site.
  */
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { Link, useHistory, useLocation } from 'react-router-dom';
 import { useGlintmarkDb, useReflectors, useSites, type InstallationRecord } from '../../../data/index.ts';
 import { NumberField } from '../../components/fields.tsx';
@@ -83,22 +83,20 @@ export function NewInstallation(props: { onSaved: () => void }) {
   const reflectors = useReflectors(form.siteId);
 
   // Pre-select the workflow's site and the reflector (from the link, or the only one) unless the crew chose.
-  useEffect(() => {
-    if (!draft.loaded || dirty || !sites || form.siteId) return;
+  // These adjust the form while rendering (React's pattern for state that follows loaded data): each sets the field
+  // its condition tests, so the next render settles.
+  if (draft.loaded && !dirty && sites && !form.siteId) {
     const m = findWorkflowSite(sites.map((r) => r.site), wf.site);
     if (m) setForm((f) => ({ ...f, siteId: m.id }));
-  }, [draft.loaded, dirty, sites, wf.site, form.siteId]);
-  useEffect(() => {
-    if (!draft.loaded || !reflectors || form.reflectorId) return;
+  }
+  if (draft.loaded && reflectors && !form.reflectorId) {
     const pick = reflectors.find((r) => r.id === reflectorParam) ?? (!dirty && reflectors.length === 1 ? reflectors[0] : undefined);
     if (pick) setForm((f) => ({ ...f, reflectorId: pick.id }));
-  }, [draft.loaded, dirty, reflectors, reflectorParam, form.reflectorId]);
+  }
 
   // A capture made after the form opened: taken at once into an untouched form, offered otherwise.
   const newerCapture = wf.capture && wf.capture.atMs !== form.captureAtMs ? wf.capture : null;
-  useEffect(() => {
-    if (newerCapture && !dirty && draft.loaded) setForm((f) => applyCapture(f, newerCapture));
-  }, [newerCapture, dirty, draft.loaded]);
+  if (newerCapture && !dirty && draft.loaded) setForm((f) => applyCapture(f, newerCapture));
 
   const update = (patch: Partial<InstallationForm>) => {
     const next = { ...form, ...patch };
