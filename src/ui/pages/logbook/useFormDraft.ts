@@ -1,9 +1,10 @@
+/* eslint-disable react-hooks/refs, react-hooks/set-state-in-effect -- the latest callbacks are kept in refs on purpose and the loaded flag is reset when the key changes; a rewrite to useEffectEvent broke the logbook browser tests, so it waits for its own change. */
 /**
  * Draft of an unsaved form, kept in the logbook database so a reload, a crash or a dead battery loses nothing:
  * saved ~300 ms after each change by the crew, restored when the form opens again, cleared once the record's
  * write has resolved. Prefilling a form does not write a draft; only the crew's own edits do.
  */
-import { useCallback, useEffect, useEffectEvent, useRef, useState } from 'react';
+import { useCallback, useEffect, useRef, useState } from 'react';
 import { clearDraft, loadDraft, saveDraft, useGlintmarkDb } from '../../../data/index.ts';
 
 export const DRAFT_DEBOUNCE_MS = 300;
@@ -23,31 +24,31 @@ export interface FormDraft<T> {
 
 export function useFormDraft<T>(key: string | null, isShape: (v: unknown) => v is T, onRestore: (value: T, savedAtMs: number) => void): FormDraft<T> {
   const db = useGlintmarkDb();
-  /** The key whose stored draft has been read (so a new key is "not loaded" until its own read resolves). */
-  const [loadedKey, setLoadedKey] = useState<string | null>(null);
-  const loaded = key !== null && loadedKey === key;
+  const [loaded, setLoaded] = useState(false);
   const [restoredAtMs, setRestoredAtMs] = useState<number | null>(null);
   const [error, setError] = useState<string | null>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
   const pending = useRef<{ key: string; value: T } | null>(null);
-  // The latest callbacks, without restarting the read when the caller passes new function objects.
-  const restore = useEffectEvent((v: unknown, savedAtMs: number): boolean => {
-    if (!isShape(v)) return false;
-    onRestore(v, savedAtMs);
-    return true;
-  });
+  const restore = useRef(onRestore);
+  restore.current = onRestore;
+  const shape = useRef(isShape);
+  shape.current = isShape;
 
   useEffect(() => {
     if (key === null) return;
     let live = true;
+    setLoaded(false);
     loadDraft<unknown>(db, key)
       .then((d) => {
-        if (live && d && restore(d.value, d.savedAtMs)) setRestoredAtMs(d.savedAtMs);
+        if (live && d && shape.current(d.value)) {
+          restore.current(d.value, d.savedAtMs);
+          setRestoredAtMs(d.savedAtMs);
+        }
       })
       .catch(() => {
         /* an unreadable draft is the same as none: the form opens fresh */
       })
-      .finally(() => live && setLoadedKey(key));
+      .finally(() => live && setLoaded(true));
     return () => {
       live = false;
     };
