@@ -15,7 +15,7 @@ export default defineConfig({
       registerType: 'prompt',
       injectRegister: false,
       manifest: false, // public/manifest.webmanifest is the manifest
-      includeAssets: ['icon.svg', 'manifest.webmanifest'],
+      includeAssets: ['icon.svg', '*.png', 'manifest.webmanifest'],
       workbox: {
         globPatterns: ['**/*.{js,css,html,svg,png,webmanifest,wasm}'],
         // A file too large to precache must fail the build rather than leave a hole in the offline app.
