@@ -12,8 +12,8 @@ function BackupNow() {
   const run = async () => {
     setMsg('Saving a backup…');
     try {
-      const [{ saveFullBackup }, { saveBackupFile }] = await Promise.all([import('../pages/settings/backupActions.ts'), import('../../sensors/backupFile.ts')]);
-      const r = await saveFullBackup(getAppDb(), { save: saveBackupFile });
+      const [{ saveFullBackup }, { saveBackupArchive }] = await Promise.all([import('../pages/settings/backupActions.ts'), import('../../sensors/backupFile.ts')]);
+      const r = await saveFullBackup(getAppDb(), { save: saveBackupArchive });
       setMsg(r.ok ? `Backup saved to ${r.value.where}.` : r.error.message);
     } catch (e) {
       setMsg(`The backup could not be made here (${e instanceof Error ? e.message : String(e)}); reload and use Settings.`);
