@@ -16,7 +16,7 @@ const el = (id: string) => page.locator(`[data-testid="${id}"]:visible`).first()
 
 beforeAll(async () => {
   browser = await launch();
-  ctx = await phoneContext(browser);
+  ctx = await phoneContext(browser, { blockServiceWorkers: true });
   page = await ctx.newPage();
 });
 afterAll(async () => {
