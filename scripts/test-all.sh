@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# Every test: type checks, unit and reference tests (Vitest), and browser tests (Vitest + playwright-core driving
+# Every test: type checks, lint, unit and reference tests (Vitest), and browser tests (Vitest + playwright-core driving
 # Debian's chromium). Installs what it needs on a fresh machine: npm packages (if absent) and Debian's chromium.
 # Ends with a plain line "N passed, N failed" counting every test run.
 set -uo pipefail
@@ -30,6 +30,14 @@ if npx tsc -p tsconfig.json --noEmit && npx tsc -p src/core/tsconfig.json --noEm
   passed=$((passed + 1)); echo "type check passed"
 else
   failed=$((failed + 1)); echo "type check FAILED"
+fi
+
+# Lint gate: ESLint (typescript-eslint, React hooks rules, folder import rules) with zero warnings; one step.
+echo "== lint"
+if npx eslint . --max-warnings 0; then
+  passed=$((passed + 1)); echo "lint passed"
+else
+  failed=$((failed + 1)); echo "lint FAILED"
 fi
 
 echo "== unit and reference tests"

@@ -14,6 +14,8 @@ import { FirstRunSafety } from './components/FirstRunSafety.tsx';
 import { applyTheme } from './state/theme.ts';
 import { PlanPage } from './pages/plan/PlanPage.tsx';
 import { lazy, Suspense, type ComponentType } from 'react';
+import { ErrorBoundary } from './components/ErrorBoundary.tsx';
+import { UpdateNotice } from './components/UpdateNotice.tsx';
 
 // Only the Plan screen is in the first bundle; the other tabs load on first visit (and are precached for offline use).
 const page = (load: () => Promise<Record<string, ComponentType>>, name: string) =>
@@ -25,10 +27,14 @@ const SitePage = page(() => import('./pages/logbook/SitePage.tsx'), 'SitePage');
 const InstallationFormPage = page(() => import('./pages/logbook/InstallationFormPage.tsx'), 'InstallationFormPage');
 const InspectionFormPage = page(() => import('./pages/logbook/InspectionFormPage.tsx'), 'InspectionFormPage');
 const SettingsPage = page(() => import('./pages/settings/SettingsPage.tsx'), 'SettingsPage');
+// Each lazily loaded screen has its own error boundary: a chunk that fails to load or a screen that throws shows a
+// message there, and the tab bar stays usable.
 const lazyRoute = (C: ComponentType) => () => (
-  <Suspense fallback={<Loading />}>
-    <C />
-  </Suspense>
+  <ErrorBoundary where="screen">
+    <Suspense fallback={<Loading />}>
+      <C />
+    </Suspense>
+  </ErrorBoundary>
 );
 
 const Loading = () => <p className="ion-padding">Loading…</p>;
@@ -38,13 +44,15 @@ applyTheme();
 
 export function App() {
   return (
+    <ErrorBoundary where="app">
     <IonApp>
       <FirstRunSafety />
       <DemoOffer />
       <IonReactRouter>
+        <UpdateNotice />
         <IonTabs>
           <IonRouterOutlet>
-            <Route exact path="/plan" component={PlanPage} />
+            <Route exact path="/plan" render={() => <ErrorBoundary where="screen"><PlanPage /></ErrorBoundary>} />
             <Route exact path="/passes" render={lazyRoute(PassesPage)} />
             <Route exact path="/align" render={lazyRoute(AlignPage)} />
             <Route exact path="/logbook" render={lazyRoute(LogbookPage)} />
@@ -69,5 +77,6 @@ export function App() {
         </IonTabs>
       </IonReactRouter>
     </IonApp>
+    </ErrorBoundary>
   );
 }

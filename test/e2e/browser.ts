@@ -20,8 +20,8 @@ export async function launch(): Promise<Browser> {
 }
 
 /** A phone-sized context with geolocation granted for the preview origin. */
-export async function phoneContext(browser: Browser, opts: { geolocation?: boolean; motionSensors?: boolean; acknowledgeSafety?: boolean } = {}): Promise<BrowserContext> {
-  const ctx = await browser.newContext({ viewport: { width: 412, height: 915 }, deviceScaleFactor: 1, hasTouch: true, isMobile: false });
+export async function phoneContext(browser: Browser, opts: { geolocation?: boolean; motionSensors?: boolean; acknowledgeSafety?: boolean; blockServiceWorkers?: boolean } = {}): Promise<BrowserContext> {
+  const ctx = await browser.newContext({ viewport: { width: 412, height: 915 }, deviceScaleFactor: 1, hasTouch: true, isMobile: false, serviceWorkers: opts.blockServiceWorkers ? 'block' : 'allow' });
   // Playwright refuses every permission not listed here, and Chromium then sends no orientation events at all.
   const permissions = [
     ...(opts.geolocation !== false ? ['geolocation'] : []),

@@ -21,6 +21,7 @@ import { ReversalCard } from './ReversalCard.tsx';
 import { TargetCard } from './TargetCard.tsx';
 import { useLiveAlign } from './useLiveAlign.ts';
 import './align.css';
+import { useNow } from '../../components/useNow.ts';
 
 /** The declination is recomputed when the minute changes (it moves by ~0.1° a year). */
 const minuteOf = (ms: number) => Math.floor(ms / 60_000);
@@ -35,7 +36,7 @@ export function AlignPage() {
   const pos = usePosition(wf.site);
   const [readings, setReadings] = useState<AzimuthReading[]>([]);
 
-  const minute = minuteOf(Date.now());
+  const minute = minuteOf(useNow(60_000));
   const decl = useMemo(() => declinationAt(pos.position, minute * 60_000), [pos.position, minute]);
   const passes = useMemo(() => passesFrom(wf.geometries), [wf.geometries]);
   const reflector = useMemo(() => reflectorFrom({ shape: wf.shape, edgeM: wf.edgeM, band: wf.band }), [wf.shape, wf.edgeM, wf.band]);

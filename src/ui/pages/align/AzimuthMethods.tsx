@@ -1,5 +1,5 @@
 /** Azimuth without (or besides) the compass: sun and shadow, a reference bearing, and the compass cross-check. */
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import type { AzimuthReading } from '../../../core/alignment/methodCheck.ts';
 import { NumberField } from '../../components/fields.tsx';
 import { fmtLength, fmtNum } from '../../format.ts';
@@ -40,10 +40,14 @@ export function AzimuthMethods(props: AzimuthMethodsProps) {
   const [bf, setBf] = useState<BearingForm>({ fromLat: '', fromLon: '', toLat: '', toLon: '' });
   const pos = props.position;
 
-  // Prefill the pivot with the known position once it is known.
-  useEffect(() => {
-    if (pos) setBf((f) => (f.fromLat === '' && f.fromLon === '' ? { ...f, fromLat: pos.latDeg.toFixed(7), fromLon: pos.lonDeg.toFixed(7) } : f));
-  }, [pos]);
+  // Prefill the pivot with the known position once it is known (adjusted while rendering, as for a prop).
+  // Compared by value: the position object is rebuilt on every render.
+  const posKey = pos ? `${pos.latDeg},${pos.lonDeg}` : null;
+  const [seenPosKey, setSeenPosKey] = useState<string | null>(null);
+  if (pos && posKey !== seenPosKey) {
+    setSeenPosKey(posKey);
+    setBf((f) => (f.fromLat === '' && f.fromLon === '' ? { ...f, fromLat: pos.latDeg.toFixed(7), fromLon: pos.lonDeg.toFixed(7) } : f));
+  }
 
   const ref = target !== null && (bf.toLat !== '' || bf.toLon !== '') ? referenceLayoutView(bf, target, refBaseline, lengthUnit) : null;
   const recorded = (m: AzimuthReading['method']) => props.readings.find((r) => r.method === m);

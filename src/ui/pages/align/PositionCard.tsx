@@ -30,25 +30,30 @@ export interface PositionState {
 export function usePosition(site: Workflow['site']): PositionState {
   const [fix, setFix] = useState<Fix | null>(null);
   const [fixMessage, setFixMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const [busy, setBusy] = useState(!site);
   const [lat, setLat] = useState('');
   const [lon, setLon] = useState('');
 
+  const readFix = useCallback(
+    () =>
+      sensors.geolocation.currentFix({ timeoutMs: FIX_TIMEOUT_MS, maxAgeMs: FIX_MAX_AGE_MS }).then((r) => {
+        setBusy(false);
+        if (r.ok) {
+          setFix(r.value);
+          setFixMessage(assessFix(r.value, Date.now()).message);
+        } else setFixMessage(r.error.message);
+      }),
+    [],
+  );
   const getFix = useCallback(() => {
     setBusy(true);
-    void sensors.geolocation.currentFix({ timeoutMs: FIX_TIMEOUT_MS, maxAgeMs: FIX_MAX_AGE_MS }).then((r) => {
-      setBusy(false);
-      if (r.ok) {
-        setFix(r.value);
-        setFixMessage(assessFix(r.value, Date.now()).message);
-      } else setFixMessage(r.error.message);
-    });
-  }, []);
+    void readFix();
+  }, [readFix]);
 
-  // Without a planned site, ask the phone once when the screen opens.
+  // Without a planned site, ask the phone once when the screen opens (busy from the first render, see above).
   useEffect(() => {
-    if (!site) getFix();
-  }, [site, getFix]);
+    if (!site) void readFix();
+  }, [site, readFix]);
 
   const pLat = parseField('Latitude', lat, requireLatDeg);
   const pLon = parseField('Longitude', lon, requireLonDeg);

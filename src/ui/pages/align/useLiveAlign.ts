@@ -2,7 +2,7 @@
  * Runs the orientation and field sensors while the Align screen is in view and hands the page a snapshot about
  * ten times a second, however fast the sensor fires. Readings go straight into a fixed-size LiveAlignment.
  */
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useState } from 'react';
 import { sensors, ORIENTATION_MESSAGES, type FieldReading, type OrientationStatus } from '../../../sensors/index.ts';
 import { LiveAlignment, type LiveSnapshot } from './liveAlign.ts';
 
@@ -18,9 +18,7 @@ export interface LiveAlignState {
 }
 
 export function useLiveAlign(active: boolean): LiveAlignState {
-  const liveRef = useRef<LiveAlignment | null>(null);
-  liveRef.current ??= new LiveAlignment();
-  const live = liveRef.current;
+  const [live] = useState(() => new LiveAlignment());
   const [snap, setSnap] = useState<LiveSnapshot>(() => live.snapshot(Date.now()));
   const [status, setStatus] = useState<OrientationStatus>({ kind: 'starting', message: ORIENTATION_MESSAGES.starting });
   const [field, setField] = useState<FieldReading | null>(null);

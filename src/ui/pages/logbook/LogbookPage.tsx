@@ -15,6 +15,7 @@ import { NewSiteCard } from './NewSiteCard.tsx';
 import { LogbookShell } from './LogbookShell.tsx';
 import { useGpsFix } from './useGpsFix.ts';
 import { fmtDistanceM, fmtLastVisit, SORT_OPTIONS, type ListSort } from './words.ts';
+import { useNow } from '../../components/useNow.ts';
 
 /** Rows shown before "Show more" (each row reads its reflector count). */
 const PAGE_ROWS = 50;
@@ -68,7 +69,7 @@ export function LogbookPage() {
   const rows = useSites({ search, sort, here });
   const conflicts = useOpenConflicts();
   const persistenceDenied = usePersistenceReminder();
-  const nowMs = Date.now();
+  const nowMs = useNow(60_000);
 
   const chooseSort = async (s: ListSort) => {
     setSort(s);

@@ -1,3 +1,4 @@
+/* eslint-disable react-hooks/set-state-in-effect -- the prefill from loaded data stays in effects until it is reworked with the logbook browser tests. */
 /**
  * Record a new installation, pre-filled from the Align capture and the plan. A draft is saved on every change and
  * restored on reopen; "Saved on this device" appears only after the record's write resolved, then the draft is

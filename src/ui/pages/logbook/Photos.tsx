@@ -1,3 +1,4 @@
+/* eslint-disable react-hooks/set-state-in-effect -- the object URL is made and revoked with the blob in one effect; a ref-callback rewrite waits for its own change with the logbook browser tests. */
 /**
  * Photos, one camera input per suggested view (along the boresight, the four cardinal views, base, foundation).
  * Before a record exists the pictures wait in memory and are added after the text record is saved; on a stored

@@ -1,3 +1,4 @@
+/* eslint-disable react-hooks/refs, react-hooks/set-state-in-effect -- the latest callbacks are kept in refs on purpose and the loaded flag is reset when the key changes; a rewrite to useEffectEvent broke the logbook browser tests, so it waits for its own change. */
 /**
  * Draft of an unsaved form, kept in the logbook database so a reload, a crash or a dead battery loses nothing:
  * saved ~300 ms after each change by the crew, restored when the form opens again, cleared once the record's

@@ -1,5 +1,5 @@
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useEffect, useEffectEvent, useMemo, useRef, useState } from 'react';
 import { useHistory } from 'react-router-dom';
 import { NumberField, Segmented } from '../../components/fields.tsx';
 import { fmtDeg } from '../../format.ts';
@@ -101,12 +101,15 @@ export function PassesPage() {
     }, 20);
   };
 
-  // Search again a moment after the inputs settle.
+  // Search again a moment after the inputs settle: `key` captures every input of run(), so it alone decides when;
+  // the search itself reads the latest inputs when the wait is over.
+  const searchIfStale = useEffectEvent(() => {
+    if (computed?.key !== key) run();
+  });
   useEffect(() => {
-    if (!ready || computed?.key === key) return;
-    const h = setTimeout(run, DEBOUNCE_MS);
+    if (!ready) return;
+    const h = setTimeout(searchIfStale, DEBOUNCE_MS);
     return () => clearTimeout(h);
-    // `key` captures every input of run(), so it alone decides when to search again.
   }, [key, ready]);
   useEffect(() => () => { if (timer.current) clearTimeout(timer.current); }, []);
 

@@ -1,5 +1,5 @@
 /** Where the reflector stands: the workflow's site, a phone GNSS fix, or typed coordinates checked in place. */
-import { useEffect, useState } from 'react';
+import { useState } from 'react';
 import { assessFix, sensors, type FixAssessment } from '../../../sensors/index.ts';
 import { NumberField } from '../../components/fields.tsx';
 import { fmtDeg, fmtLength, fmtNum } from '../../format.ts';
@@ -25,12 +25,15 @@ export function SitePanel(props: { site: SiteInput | null }) {
   const [heightNote, setHeightNote] = useState<string | null>(null);
   const parsed = parseSiteForm(form);
 
-  // Another screen (the logbook) may set the site: show its coordinates in the fields.
-  useEffect(() => {
+  // Another screen (the logbook) may set the site: show its coordinates in the fields (adjusted while rendering,
+  // the way React documents for state that follows a prop).
+  const [shownSite, setShownSite] = useState(props.site);
+  if (props.site !== shownSite) {
+    setShownSite(props.site);
     if (props.site && props.site.source !== 'typed') setForm(formFrom(props.site));
-  }, [props.site]);
+  }
 
-  const useGps = async () => {
+  const readGps = async () => {
     setBusy(true);
     setGpsError(null);
     try {
@@ -77,7 +80,7 @@ export function SitePanel(props: { site: SiteInput | null }) {
       ) : (
         <p className="gm-warn" data-testid="passes-site">No site yet: use the phone’s position or type the coordinates.</p>
       )}
-      <button type="button" className="gm-btn gm-primary" onClick={() => void useGps()} disabled={busy} data-testid="use-gps">
+      <button type="button" className="gm-btn gm-primary" onClick={() => void readGps()} disabled={busy} data-testid="use-gps">
         {busy ? 'Reading position…' : 'Use GPS'}
       </button>
       {gpsError ? (
