@@ -16,15 +16,16 @@
  * the history of an incoming version that was not applied travels with its conflict row instead.
  * Orbital element sets (`elements`) merge by the rules in mergeElements.ts.
  */
-import { storedRows } from './backup.ts';
+import { readBackup } from './backup.ts';
 import type { BackupTable } from './backup/format.ts';
 import { BACKUP_TABLES } from './backup/format.ts';
-import { documentLookup, linkIssues, referenceIssues, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import { documentLookup, linkIssues, referenceIssues, type BackupCheckOptions } from './backup/validate.ts';
 import type { GlintmarkDb } from './db.ts';
 import { deepEqual } from './equal.ts';
 import { BackupError } from './errors.ts';
 import { mergeElementSets } from './mergeElements.ts';
 import { resolveContext, type WriteContext } from './repo/context.ts';
+import { fillPhotoHashes } from './repo/photos.ts';
 import { makeRevision } from './repo/revisions.ts';
 import { liveSiteWithCode } from './repo/sites.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
@@ -69,10 +70,12 @@ async function sameBytes(a: Blob, b: Blob): Promise<boolean> {
 /** The revision that produced `row` (same rev and time), if the list has it. */
 const headOf = (row: Row, revs: readonly RevisionRecord[]) => revs.find((r) => r.rev === row.rev && r.atMs === row.updatedAtMs);
 
-export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts: MergeOptions): Promise<MergeReport> {
+/** Merge a backup archive (Blob) or a JSON backup (Blob, text or document); everything is checked before writing. */
+export async function mergeBackup(db: GlintmarkDb, input: Blob | string | unknown, opts: MergeOptions): Promise<MergeReport> {
   const { by, nowMs } = resolveContext(opts);
-  const doc = validateBackup(input, { maxPhotoBytes: opts.maxPhotoBytes, checkReferences: false });
-  const rows = storedRows(doc);
+  const { doc, rows } = await readBackup(input, { maxPhotoBytes: opts.maxPhotoBytes, checkReferences: false });
+  // Photos stored before schema 5 get their hash first, so photos compare by their bytes' hash like any field.
+  await fillPhotoHashes(db);
   const incomingRevs = new Map<string, RevisionRecord[]>();
   for (const r of doc.tables.revisions) incomingRevs.set(`${r.table}:${r.recordId}`, [...(incomingRevs.get(`${r.table}:${r.recordId}`) ?? []), r]);
   for (const list of incomingRevs.values()) list.sort((x, y) => x.rev - y.rev || x.atMs - y.atMs || x.id.localeCompare(y.id));

@@ -11,7 +11,7 @@ import { elementRowIssues } from '../schema/elements.ts';
 import { copyPlain, forbiddenKey, forbiddenKeyMessage } from '../schema/plain.ts';
 import { rowIssues } from '../schema/validate.ts';
 import { ENTITY_TABLES } from '../types.ts';
-import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, conflictRowSchema, envelopeSchema, photoRowSchema, revisionRowSchema, type BackupDocument, type BackupTable, type BackupTables } from './format.ts';
+import { ARCHIVE_RECORDS_FORMAT_VERSION, BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, archivePhotoRowSchema, conflictRowSchema, envelopeSchema, photoRowSchema, revisionRowSchema, type BackupDocument, type BackupTable, type BackupTables } from './format.ts';
 
 export interface BackupCheckOptions {
   /** Largest photo accepted, bytes (default DEFAULT_MAX_PHOTO_BYTES). */
@@ -54,12 +54,21 @@ function parseText(text: string): unknown {
   }
 }
 
-function checkEnvelope(data: unknown): BackupDocument {
+/** Where a document's photo bytes are: inline base64 (a JSON backup file) or entries of the archive (records.json). */
+export type BackupLayout = 'json' | 'archive';
+
+function checkEnvelope(data: unknown, layout: BackupLayout): BackupDocument {
   const o = (typeof data === 'object' && data !== null && !Array.isArray(data) ? data : {}) as Record<string, unknown>;
   if (o.format !== BACKUP_FORMAT) {
     throw new BackupError('wrong-format', `This file is not a Glintmark backup (its format is ${JSON.stringify(o.format ?? null)}, expected "${BACKUP_FORMAT}"). Nothing was restored.`);
   }
-  if (o.formatVersion !== BACKUP_FORMAT_VERSION) {
+  if (layout === 'json' && o.formatVersion === ARCHIVE_RECORDS_FORMAT_VERSION) {
+    throw new BackupError('wrong-format', 'This is the records file from inside a backup archive, without its photos. Restore the whole archive (the .glintmark.zip file) instead. Nothing was restored.');
+  }
+  if (layout === 'archive' && o.formatVersion !== ARCHIVE_RECORDS_FORMAT_VERSION) {
+    throw new BackupError('wrong-version', `The records inside this backup archive have format version ${JSON.stringify(o.formatVersion ?? null)}, not ${ARCHIVE_RECORDS_FORMAT_VERSION}. Nothing was restored.`);
+  }
+  if (layout === 'json' && o.formatVersion !== BACKUP_FORMAT_VERSION) {
     const newer = typeof o.formatVersion === 'number' && o.formatVersion > BACKUP_FORMAT_VERSION;
     throw new BackupError(
       'wrong-version',
@@ -122,10 +131,10 @@ function rowName(table: string, i: number, row: unknown): string {
   return `${table}[${i}]${hint ? ` (${hint})` : ''}`;
 }
 
-function recordIssues(tables: BackupTables): Issue[] {
+function recordIssues(tables: BackupTables, layout: BackupLayout): Issue[] {
   const issues: Issue[] = [];
   for (const t of ENTITY_TABLES) tables[t].forEach((row, i) => issues.push(...rowIssues(t, row, rowName(t, i, row))));
-  const simple: [BackupTable, v.GenericSchema][] = [['photos', photoRowSchema], ['revisions', revisionRowSchema], ['conflicts', conflictRowSchema]];
+  const simple: [BackupTable, v.GenericSchema][] = [['photos', layout === 'json' ? photoRowSchema : archivePhotoRowSchema], ['revisions', revisionRowSchema], ['conflicts', conflictRowSchema]];
   for (const [t, schema] of simple) {
     (tables[t] as unknown[]).forEach((row, i) => {
       const r = v.safeParse(schema, row);
@@ -133,7 +142,7 @@ function recordIssues(tables: BackupTables): Issue[] {
     });
   }
   tables.elements.forEach((row, i) => issues.push(...elementRowIssues(row, rowName('elements', i, row))));
-  tables.photos.forEach((p, i) => {
+  if (layout === 'json') tables.photos.forEach((p, i) => {
     if (!v.is(photoRowSchema, p)) return; // already reported
     const n = base64DecodedLength(p.dataBase64);
     if (n < 0) issues.push({ path: `photos[${i}].dataBase64`, message: 'is not valid base64' });
@@ -279,13 +288,13 @@ export interface CheckedBackup {
  * not-json, truncated, wrong-format, wrong-version, invalid-record, duplicate-id, photo-too-large, dangling-reference.
  * The returned document always has every table list (a missing `elements` list reads as []); the input is not changed.
  */
-export function checkBackup(input: unknown, opts: BackupCheckOptions = {}): CheckedBackup {
+export function checkBackup(input: unknown, opts: BackupCheckOptions = {}, layout: BackupLayout = 'json'): CheckedBackup {
   const maxPhotoBytes = opts.maxPhotoBytes ?? DEFAULT_MAX_PHOTO_BYTES;
-  const raw = checkEnvelope(plainDocument(typeof input === 'string' ? parseText(input) : input));
+  const raw = checkEnvelope(plainDocument(typeof input === 'string' ? parseText(input) : input), layout);
   const hasElements = Array.isArray(raw.tables.elements);
   const doc: BackupDocument = hasElements ? raw : { ...raw, tables: { ...raw.tables, elements: [] } };
   const t = doc.tables;
-  const rec = recordIssues(t);
+  const rec = recordIssues(t, layout);
   if (rec.length) throw fail('invalid-record', `${rec.length} problem(s) in its records`, rec);
   const dup = duplicateIssues(t);
   if (dup.length) throw fail('duplicate-id', 'some records appear twice', dup);
