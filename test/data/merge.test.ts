@@ -189,6 +189,8 @@ describe('mergeBackup', () => {
     const doc = await backupOf(phoneB);
     const theirBytes = new Uint8Array([1, 2, 3, 250, 99]); // same length, one byte differs
     doc.tables.photos[0].dataBase64 = btoa(String.fromCharCode(...theirBytes));
+    // The file's photo hash matches its (other) bytes, so only the merge's byte comparison can tell them apart.
+    (doc.tables.photos[0] as { sha256?: string }).sha256 = await sha256(theirBytes);
     const report = await mergeBackup(phoneA(), doc, A);
     expect(report.photos).toMatchObject({ added: 0, updated: 0, unchanged: 0 });
     expect(report.photos.conflicts).toEqual([{ table: 'photos', id: photo.id, reason: expect.stringMatching(/different bytes/) }]);
