@@ -11,6 +11,7 @@ import { Redirect, Route } from 'react-router-dom';
 import { TABS } from './tabs.ts';
 import { DemoOffer } from './components/DemoOffer.tsx';
 import { FirstRunSafety } from './components/FirstRunSafety.tsx';
+import { StartupBanner } from './components/StartupBanner.tsx';
 import { applyTheme } from './state/theme.ts';
 import { PlanPage } from './pages/plan/PlanPage.tsx';
 import { lazy, Suspense, type ComponentType } from 'react';
@@ -46,6 +47,7 @@ export function App() {
   return (
     <ErrorBoundary where="app">
     <IonApp>
+      <StartupBanner />
       <FirstRunSafety />
       <DemoOffer />
       <IonReactRouter>

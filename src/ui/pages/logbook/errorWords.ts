@@ -3,6 +3,8 @@
  * data README says) whose messages are already plain sentences; storage-level errors get words of our own. Pure.
  */
 
+import { isEngineError } from '../../engineErrors.ts';
+
 const STORAGE_FULL =
   'This phone’s storage is full, so nothing was saved. Make a backup (Settings), remove old photos or other files, and try again. The form is kept.';
 const CLOSED = 'The logbook could not be reached (the phone may have freed memory). Nothing was saved; tap Save again. If it keeps failing, restart the app.';
@@ -32,6 +34,6 @@ export function saveErrorMessage(e: unknown, kept = true): string {
     case 'VersionError':
       return NEWER;
     default:
-      return `Not saved: ${message.replace(/\.$/, '')}.${tail}`;
+      return isEngineError(e) ? `Not saved: something went wrong inside Glintmark.${tail || ' Nothing was changed.'} Try again; if it keeps failing, restart the app.` : `Not saved: ${message.replace(/\.$/, '')}.${tail}`;
   }
 }

@@ -1,3 +1,5 @@
+import { ENGINE_FALLBACK, isEngineError } from '../../engineErrors.ts';
+
 /** A failure as a sentence for the crew. Data-layer errors already are sentences; storage errors get plain words. */
 export function messageOf(e: unknown): string {
   if (!(e instanceof Error)) return String(e);
@@ -10,6 +12,6 @@ export function messageOf(e: unknown): string {
     case 'VersionError':
       return 'This phone holds a logbook from a newer Glintmark. Update the app; nothing was changed.';
     default:
-      return e.message;
+      return isEngineError(e) ? ENGINE_FALLBACK : e.message;
   }
 }
