@@ -22,6 +22,7 @@ import { referenceIssues, validateBackup, type BackupCheckOptions } from './back
 import type { GlintmarkDb } from './db.ts';
 import { deepEqual } from './equal.ts';
 import { BackupError } from './errors.ts';
+import { decideRecordMerge, withoutBlob } from './mergeDecision.ts';
 import { mergeElementSets } from './mergeElements.ts';
 import { resolveContext, type WriteContext } from './repo/context.ts';
 import { makeRevision } from './repo/revisions.ts';
@@ -50,13 +51,6 @@ export type MergeOptions = WriteContext & Pick<BackupCheckOptions, 'maxPhotoByte
 
 type Row = Record<string, unknown> & { id: string; rev: number; updatedAtMs: number; deletedAtMs: number | null };
 
-const withoutBlob = (r: Record<string, unknown>) => {
-  const { blob: _blob, ...rest } = r;
-  return rest;
-};
-
-/** The revision that produced `row` (same rev and time), if the list has it. */
-const headOf = (row: Row, revs: readonly RevisionRecord[]) => revs.find((r) => r.rev === row.rev && r.atMs === row.updatedAtMs);
 
 export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts: MergeOptions): Promise<MergeReport> {
   const { by, nowMs } = resolveContext(opts);
@@ -120,20 +114,18 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
           continue;
         }
         const myRevs = await db.revisions.where('[table+recordId]').equals([table, incoming.id]).toArray();
-        if (incoming.rev > mine.rev) {
-          const myHead = headOf(mine, myRevs);
+        const d = decideRecordMerge(mine, myRevs, incoming, theirRevs);
+        if (d.action === 'replace') {
           await db.table(table).put(table === 'sites' ? await freeCode(incoming) : incoming);
           r.updated++;
-          if (!myHead || !theirRevs.some((x) => x.id === myHead.id)) {
+          if (d.diverged) {
             await keepConflict(table, incoming.id, 'incoming', mine, [], `edited on both phones: incoming revision ${incoming.rev} replaced local revision ${mine.rev}; the local version is kept here`);
           }
-        } else if (incoming.rev < mine.rev) {
-          const theirHead = headOf(incoming, theirRevs);
-          if (theirHead && myRevs.some((x) => x.id === theirHead.id)) r.localNewer++;
-          else {
-            skipRevisionsOf.add(`${table}:${incoming.id}`);
-            await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `edited on both phones: local revision ${mine.rev} kept; the incoming revision ${incoming.rev} is not in its history`);
-          }
+        } else if (d.action === 'keep-local' && !d.diverged) {
+          r.localNewer++;
+        } else if (d.action === 'keep-local' && !d.sameRev) {
+          skipRevisionsOf.add(`${table}:${incoming.id}`);
+          await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `edited on both phones: local revision ${mine.rev} kept; the incoming revision ${incoming.rev} is not in its history`);
         } else {
           skipRevisionsOf.add(`${table}:${incoming.id}`);
           await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `revision ${mine.rev} differs between the phones; the local version is kept`);

@@ -71,7 +71,7 @@ describe('schema versions', () => {
     const db = openGlintmarkDb(uniqueName());
     await db.open();
     expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
-    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 4 });
+    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: CURRENT_SCHEMA_VERSION });
     db.close();
   });
 
@@ -80,7 +80,7 @@ describe('schema versions', () => {
     await writeV1(name);
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(4);
+    expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
 
     const { gnssFix: _g1, ...siteGnss } = v1Site(ID.siteGnss, 'MF-01', true);
     const { gnssFix: _g2, ...siteTyped } = v1Site(ID.siteTyped, 'MF-02', false);
@@ -150,7 +150,7 @@ describe('version 3 → 4', () => {
     await seedSample(source);
     await source.conflicts.add({ id: ID.rev, table: 'sites', recordId: ID.siteGnss, reason: 'test', kept: 'local', other: { code: 'MF-09' }, otherRevisions: [], detectedAtMs: T0_MS, resolvedAtMs: null });
     await source.drafts.put({ key: 'installation-form', value: { notes: 'half typed' }, savedAtMs: T0_MS });
-    const v3Tables = source.tables.filter((t) => t.name !== 'elements').map((t) => t.name);
+    const v3Tables = source.tables.filter((t) => !['elements', 'outbox', 'syncState'].includes(t.name)).map((t) => t.name);
     const rows: Record<string, unknown[]> = {};
     for (const t of v3Tables) rows[t] = await source.table(t).toArray();
     source.close();
@@ -169,10 +169,11 @@ describe('version 3 → 4', () => {
 
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(4);
+    expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
     const after = await dumpDb(db);
     expect(after.elements).toEqual([]);
-    const { elements: _e, ...kept } = after;
+    const { elements: _e, outbox: _o, syncState: _s, ...kept } = after;
+    expect(after.outbox).toEqual([]);
     expect(kept).toEqual(before);
     for (const t of Object.keys(before)) expect(before[t].length, t).toBe(rows[t].length);
     // The new table and its index work on the migrated database.
