@@ -12,6 +12,10 @@ import { command as declination } from './declination.ts';
 import { command as sun } from './sun.ts';
 import { command as bearing } from './bearing.ts';
 import { command as layout } from './layout.ts';
+import { command as serve } from './serve.ts';
+import { command as team } from './team.ts';
+import { command as push } from './push.ts';
+import { command as pull } from './pull.ts';
 
 /** Every planner command, in the order `glintmark --help` lists them. */
-export const commands: readonly Command[] = [aim, rcs, misalign, size, precision, compromise, plan, passes, orient, declination, sun, bearing, layout];
+export const commands: readonly Command[] = [aim, rcs, misalign, size, precision, compromise, plan, passes, orient, declination, sun, bearing, layout, serve, team, push, pull];
