@@ -3,3 +3,5 @@ export { normaliseServerUrl, RegisterClient, SyncError, type FetchLike, type Syn
 export { backoffDelayMs, readSyncStatus, signIn, signOut, startAutoSync, syncOnce, type SyncOutcome, type SyncStatus } from './engine.ts';
 export { pullAll } from './pull.ts';
 export { pushOutbox, queueWholeLogbook } from './push.ts';
+export { useSyncStatus } from './hooks.ts';
+export { INSPECTION_INTERVAL_MS, registerOverview, type RegisterOverview } from './overview.ts';

@@ -9,6 +9,7 @@ import { IonApp, IonIcon, IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, Io
 import { IonReactRouter } from '@ionic/react-router';
 import { Redirect, Route } from 'react-router-dom';
 import { TABS } from './tabs.ts';
+import { AutoSync } from './components/AutoSync.tsx';
 import { DemoOffer } from './components/DemoOffer.tsx';
 import { FirstRunSafety } from './components/FirstRunSafety.tsx';
 import { applyTheme } from './state/theme.ts';
@@ -25,6 +26,7 @@ const SitePage = page(() => import('./pages/logbook/SitePage.tsx'), 'SitePage');
 const InstallationFormPage = page(() => import('./pages/logbook/InstallationFormPage.tsx'), 'InstallationFormPage');
 const InspectionFormPage = page(() => import('./pages/logbook/InspectionFormPage.tsx'), 'InspectionFormPage');
 const SettingsPage = page(() => import('./pages/settings/SettingsPage.tsx'), 'SettingsPage');
+const RegisterPage = page(() => import('./pages/register/RegisterPage.tsx'), 'RegisterPage');
 const lazyRoute = (C: ComponentType) => () => (
   <Suspense fallback={<Loading />}>
     <C />
@@ -41,6 +43,7 @@ export function App() {
     <IonApp>
       <FirstRunSafety />
       <DemoOffer />
+      <AutoSync />
       <IonReactRouter>
         <IonTabs>
           <IonRouterOutlet>
@@ -54,6 +57,7 @@ export function App() {
             <Route exact path="/logbook/inspection/new/:reflectorId" render={lazyRoute(InspectionFormPage)} />
             <Route exact path="/logbook/inspection/:inspectionId" render={lazyRoute(InspectionFormPage)} />
             <Route exact path="/settings" render={lazyRoute(SettingsPage)} />
+            <Route exact path="/register" render={lazyRoute(RegisterPage)} />
             <Route exact path="/">
               <Redirect to="/plan" />
             </Route>
