@@ -85,6 +85,26 @@ export const SCHEMA_V4 = {
 } as const;
 
 /**
+ * Version 5: every photo row carries `sha256` (64 lowercase hex digits of its bytes), which names the photo's
+ * file in a backup archive and lets a merge compare bytes. No new index. The upgrade cannot hash: an IndexedDB
+ * upgrade transaction commits as soon as it waits on anything that is not an IndexedDB request, and
+ * `crypto.subtle.digest` is not one. So the upgrade only marks existing photos `sha256: null`, and
+ * `fillPhotoHashes` (repo/photos.ts) hashes them after opening: the app calls it at start, and every backup export
+ * and merge calls it first, so no archive or merge ever meets a photo without its hash.
+ */
+export const SCHEMA_V5 = {} as const;
+
+/** v4 → v5: existing photos get `sha256: null` (hashed after opening by fillPhotoHashes); nothing else changes. */
+async function upgradeV4ToV5(tx: Transaction): Promise<void> {
+  await tx
+    .table('photos')
+    .toCollection()
+    .modify((p: Record<string, unknown>) => {
+      if (typeof p.sha256 !== 'string') p.sha256 = null;
+    });
+}
+
+/**
  * Version 6: the sync outbox (`outbox`, one entry per revision written on this phone, auto-numbered, indexed by
  * record and by revision) and the device-local sync state (`syncState`, key/value: server, sign-in, push number,
  * pull cursor). New, empty tables: no upgrade. Records written before version 6 are queued when the phone first
@@ -143,8 +163,10 @@ export function openGlintmarkDb(name = 'glintmark'): GlintmarkDb {
   db.version(3)
     .stores(SCHEMA_V3)
     .upgrade((tx) => rebuildSiteVisits({ installations: tx.table('installations'), inspections: tx.table('inspections'), siteVisits: tx.table('siteVisits') }));
-  // Version 4: never alter once shipped; add version 5 for further changes.
+  // Version 4: never alter once shipped.
   db.version(4).stores(SCHEMA_V4);
+  // Version 5: never alter once shipped (it has an upgrade); add a new version for further changes.
+  db.version(5).stores(SCHEMA_V5).upgrade(upgradeV4ToV5);
   // Version 6: never alter once shipped; add a later version for further changes.
   db.version(6).stores(SCHEMA_V6);
   db.use(outboxMiddleware);

@@ -95,11 +95,10 @@ async function fetchPhotoBytes(db: GlintmarkDb, client: RegisterClient, page: Pu
   return out;
 }
 
-/** The stored row for a pulled one: photos get their bytes back (the hash travels only on the wire). */
+/** The stored row for a pulled one: photos get their bytes back (and keep their hash, schema 5). */
 function storedRow(table: VersionedTable, row: Record<string, unknown>, blobs: Map<string, Blob>): MergeRow {
   if (table !== 'photos') return row as MergeRow;
-  const { sha256: _sha, ...rest } = row;
-  return { ...rest, blob: blobs.get(row.id as string) } as unknown as MergeRow;
+  return { ...row, blob: blobs.get(row.id as string) } as unknown as MergeRow;
 }
 
 const comparable = (r: Record<string, unknown>) => {
