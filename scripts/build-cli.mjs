@@ -8,7 +8,12 @@ import { fileURLToPath } from 'node:url';
 const root = fileURLToPath(new URL('..', import.meta.url));
 await build({
   entryPoints: [`${root}src/cli/main.ts`],
-  outfile: `${root}dist-cli/glintmark.mjs`,
+  outdir: `${root}dist-cli`,
+  entryNames: 'glintmark',
+  outExtension: { '.js': '.mjs' },
+  // Lazily imported parts (the team register server) stay in their own chunks, loaded only by the commands that need them.
+  splitting: true,
+  chunkNames: 'chunks/[name]-[hash]',
   bundle: true,
   platform: 'node',
   format: 'esm',

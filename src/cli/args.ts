@@ -96,12 +96,18 @@ export class Args {
   valuesOf(names: readonly string[]): string[] {
     return names.flatMap((n) => this.parsed.values.get(n) ?? []);
   }
+  /** Plain arguments (not options), e.g. a sub-command or a file name; reading them marks them expected. */
+  positionals(): string[] {
+    this.positionalsUsed = true;
+    return [...this.parsed.positionals];
+  }
+  private positionalsUsed = false;
   /** Reject options nobody asked for (a typo must not be silently ignored). */
   assertNoUnknown(): void {
     for (const k of [...this.parsed.values.keys(), ...this.parsed.switches]) {
       if (!this.used.has(k)) throw new UsageError(`unknown option --${k}`);
     }
-    if (this.parsed.positionals.length) throw new UsageError(`unexpected argument "${this.parsed.positionals[0]}"`);
+    if (!this.positionalsUsed && this.parsed.positionals.length) throw new UsageError(`unexpected argument "${this.parsed.positionals[0]}"`);
   }
 }
 

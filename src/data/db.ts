@@ -22,6 +22,7 @@ import type {
   SiteVisitsRecord,
 } from './types.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
+import { outboxMiddleware, type OutboxEntry, type SyncStateRecord } from './outbox.ts';
 
 export type GlintmarkDb = Dexie & {
   sites: Table<SiteRecord, string>;
@@ -36,9 +37,11 @@ export type GlintmarkDb = Dexie & {
   conflicts: Table<ConflictRecord, string>;
   siteVisits: Table<SiteVisitsRecord, string>;
   elements: Table<ElementSetRecord, string>;
+  outbox: Table<OutboxEntry, number>;
+  syncState: Table<SyncStateRecord, string>;
 };
 
-export const CURRENT_SCHEMA_VERSION = 5;
+export const CURRENT_SCHEMA_VERSION = 6;
 
 /**
  * Version 1 (released 0.1). Sites had `gnssFix: boolean` instead of `positionSource`; installations had a
@@ -101,6 +104,17 @@ async function upgradeV4ToV5(tx: Transaction): Promise<void> {
     });
 }
 
+/**
+ * Version 6: the sync outbox (`outbox`, one entry per revision written on this phone, auto-numbered, indexed by
+ * record and by revision) and the device-local sync state (`syncState`, key/value: server, sign-in, push number,
+ * pull cursor). New, empty tables: no upgrade. Records written before version 6 are queued when the phone first
+ * signs in to a register (src/sync/). Neither table is part of a backup.
+ */
+export const SCHEMA_V6 = {
+  outbox: '++seq, [table+recordId], revisionId',
+  syncState: 'key',
+} as const;
+
 /** The declination model the 0.1 release used for every compass reading (its only model). */
 export const V1_DECLINATION_MODEL = 'WMM2020';
 
@@ -153,6 +167,9 @@ export function openGlintmarkDb(name = 'glintmark'): GlintmarkDb {
   db.version(4).stores(SCHEMA_V4);
   // Version 5: never alter once shipped (it has an upgrade); add a new version for further changes.
   db.version(5).stores(SCHEMA_V5).upgrade(upgradeV4ToV5);
+  // Version 6: never alter once shipped; add a later version for further changes.
+  db.version(6).stores(SCHEMA_V6);
+  db.use(outboxMiddleware);
   db.on('populate', (tx) => {
     tx.table('meta').add({ key: 'schema', value: { createdWithVersion: CURRENT_SCHEMA_VERSION, createdAtMs: Date.now() } });
   });

@@ -30,7 +30,7 @@ function parentsOf(table: EntityTable, row: AnyEntity): [EntityTable, string][] 
 }
 
 export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport> {
-  const scope = [...ENTITY_TABLES, 'photos', 'revisions', 'conflicts', 'siteVisits', 'elements'];
+  const scope = [...ENTITY_TABLES, 'photos', 'revisions', 'conflicts', 'siteVisits', 'elements', 'outbox'];
   return db.transaction('rw', scope, async () => {
     const rows = new Map<EntityTable, AnyEntity[]>();
     for (const t of ENTITY_TABLES) rows.set(t, (await db.table(t).toArray()) as AnyEntity[]);
@@ -89,6 +89,8 @@ export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport
     for (const id of photoIds) gone.add(key('photos', id));
     const revIds = (await db.revisions.toArray()).filter((r) => gone.has(key(r.table, r.recordId))).map((r) => r.id);
     await db.revisions.bulkDelete(revIds);
+    // Their sync outbox entries go too: there is nothing left to send.
+    await db.outbox.where('revisionId').anyOf(revIds).delete();
     report.removed.revisions = revIds.length;
     const conflictIds = (await db.conflicts.toArray()).filter((c) => gone.has(key(c.table, c.recordId))).map((c) => c.id);
     await db.conflicts.bulkDelete(conflictIds);

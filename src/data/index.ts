@@ -68,6 +68,12 @@ export {
   type RestoreOptions,
   type TableCounts,
 } from './backup.ts';
+export { deepEqual } from './equal.ts';
+export { decideRecordMerge, headOf, inHistory, withoutBlob, type MergeDecision, type MergeRow } from './mergeDecision.ts';
+export { syncConflictIssues, syncElementIssues, syncRecordIssues, syncRevisionIssues } from './syncRows.ts';
+export { mergeElementSets } from './mergeElements.ts';
+export { rebuildSiteVisits } from './repo/siteVisits.ts';
+export { markTransactionQuiet, type OutboxEntry, type SyncStateRecord } from './outbox.ts';
 export { mergeBackup, type MergeConflict, type MergeOptions, type MergeReport, type TableMergeReport } from './merge.ts';
 export { removeDemoData, type DemoRemovalReport } from './demo.ts';
 

@@ -23,6 +23,7 @@ import { documentLookup, linkIssues, referenceIssues, type BackupCheckOptions } 
 import type { GlintmarkDb } from './db.ts';
 import { deepEqual } from './equal.ts';
 import { BackupError } from './errors.ts';
+import { decideRecordMerge, withoutBlob } from './mergeDecision.ts';
 import { mergeElementSets } from './mergeElements.ts';
 import { resolveContext, type WriteContext } from './repo/context.ts';
 import { fillPhotoHashes } from './repo/photos.ts';
@@ -52,10 +53,6 @@ export type MergeOptions = WriteContext & Pick<BackupCheckOptions, 'maxPhotoByte
 
 type Row = Record<string, unknown> & { id: string; rev: number; updatedAtMs: number; deletedAtMs: number | null };
 
-const withoutBlob = (r: Record<string, unknown>) => {
-  const { blob: _blob, ...rest } = r;
-  return rest;
-};
 
 /** Whether two blobs hold the same bytes. */
 async function sameBytes(a: Blob, b: Blob): Promise<boolean> {
@@ -66,9 +63,6 @@ async function sameBytes(a: Blob, b: Blob): Promise<boolean> {
   for (let i = 0; i < u.length; i++) if (u[i] !== w[i]) return false;
   return true;
 }
-
-/** The revision that produced `row` (same rev and time), if the list has it. */
-const headOf = (row: Row, revs: readonly RevisionRecord[]) => revs.find((r) => r.rev === row.rev && r.atMs === row.updatedAtMs);
 
 /** Merge a backup archive (Blob) or a JSON backup (Blob, text or document); everything is checked before writing. */
 export async function mergeBackup(db: GlintmarkDb, input: Blob | string | unknown, opts: MergeOptions): Promise<MergeReport> {
@@ -164,20 +158,18 @@ export async function mergeBackup(db: GlintmarkDb, input: Blob | string | unknow
           continue;
         }
         const myRevs = await db.revisions.where('[table+recordId]').equals([table, incoming.id]).toArray();
-        if (incoming.rev > mine.rev) {
-          const myHead = headOf(mine, myRevs);
+        const d = decideRecordMerge(mine, myRevs, incoming, theirRevs);
+        if (d.action === 'replace') {
           await db.table(table).put(table === 'sites' ? await freeCode(incoming) : incoming);
           r.updated++;
-          if (!myHead || !theirRevs.some((x) => x.id === myHead.id)) {
+          if (d.diverged) {
             await keepConflict(table, incoming.id, 'incoming', mine, [], `edited on both phones: incoming revision ${incoming.rev} replaced local revision ${mine.rev}; the local version is kept here`);
           }
-        } else if (incoming.rev < mine.rev) {
-          const theirHead = headOf(incoming, theirRevs);
-          if (theirHead && myRevs.some((x) => x.id === theirHead.id)) r.localNewer++;
-          else {
-            skipRevisionsOf.add(`${table}:${incoming.id}`);
-            await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `edited on both phones: local revision ${mine.rev} kept; the incoming revision ${incoming.rev} is not in its history`);
-          }
+        } else if (d.action === 'keep-local' && !d.diverged) {
+          r.localNewer++;
+        } else if (d.action === 'keep-local' && !d.sameRev) {
+          skipRevisionsOf.add(`${table}:${incoming.id}`);
+          await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `edited on both phones: local revision ${mine.rev} kept; the incoming revision ${incoming.rev} is not in its history`);
         } else {
           skipRevisionsOf.add(`${table}:${incoming.id}`);
           await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `revision ${mine.rev} differs between the phones; the local version is kept`);

@@ -9,6 +9,7 @@ import { IonApp, IonIcon, IonLabel, IonRouterOutlet, IonTabBar, IonTabButton, Io
 import { IonReactRouter } from '@ionic/react-router';
 import { Redirect, Route } from 'react-router-dom';
 import { TABS } from './tabs.ts';
+import { AutoSync } from './components/AutoSync.tsx';
 import { DemoOffer } from './components/DemoOffer.tsx';
 import { FirstRunSafety } from './components/FirstRunSafety.tsx';
 import { StartupBanner } from './components/StartupBanner.tsx';
@@ -28,6 +29,7 @@ const SitePage = page(() => import('./pages/logbook/SitePage.tsx'), 'SitePage');
 const InstallationFormPage = page(() => import('./pages/logbook/InstallationFormPage.tsx'), 'InstallationFormPage');
 const InspectionFormPage = page(() => import('./pages/logbook/InspectionFormPage.tsx'), 'InspectionFormPage');
 const SettingsPage = page(() => import('./pages/settings/SettingsPage.tsx'), 'SettingsPage');
+const RegisterPage = page(() => import('./pages/register/RegisterPage.tsx'), 'RegisterPage');
 // Each lazily loaded screen has its own error boundary: a chunk that fails to load or a screen that throws shows a
 // message there, and the tab bar stays usable.
 const lazyRoute = (C: ComponentType) => () => (
@@ -50,6 +52,7 @@ export function App() {
       <StartupBanner />
       <FirstRunSafety />
       <DemoOffer />
+      <AutoSync />
       <IonReactRouter>
         <UpdateNotice />
         <IonTabs>
@@ -64,6 +67,7 @@ export function App() {
             <Route exact path="/logbook/inspection/new/:reflectorId" render={lazyRoute(InspectionFormPage)} />
             <Route exact path="/logbook/inspection/:inspectionId" render={lazyRoute(InspectionFormPage)} />
             <Route exact path="/settings" render={lazyRoute(SettingsPage)} />
+            <Route exact path="/register" render={lazyRoute(RegisterPage)} />
             <Route exact path="/">
               <Redirect to="/plan" />
             </Route>

@@ -16,7 +16,7 @@ describe('backup and restore', () => {
   it('writes one versioned JSON document with photos inline as base64', async () => {
     const ids = await seedSample(db());
     const doc = await exportBackup(db(), { appVersion: '0.1.0', nowMs: T0_MS });
-    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 1, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { name: 'glintmark', version: '0.1.0', schemaVersion: 5 } });
+    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 1, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { name: 'glintmark', version: '0.1.0', schemaVersion: 6 } });
     expect(doc.tables.photos).toEqual([expect.objectContaining({ id: ids.photo.id, mime: 'image/jpeg', bytes: 5, dataBase64: 'AQID+vs=' })]);
     expect(doc.tables.photos[0]).not.toHaveProperty('blob');
     expect(JSON.parse(backupToJson(doc))).toEqual(doc);

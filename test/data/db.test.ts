@@ -73,7 +73,7 @@ describe('schema versions', () => {
     const db = openGlintmarkDb(uniqueName());
     await db.open();
     expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
-    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 5 });
+    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: CURRENT_SCHEMA_VERSION });
     db.close();
   });
 
@@ -82,7 +82,7 @@ describe('schema versions', () => {
     await writeV1(name);
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(5);
+    expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
 
     const { gnssFix: _g1, ...siteGnss } = v1Site(ID.siteGnss, 'MF-01', true);
     const { gnssFix: _g2, ...siteTyped } = v1Site(ID.siteTyped, 'MF-02', false);
@@ -152,7 +152,7 @@ describe('version 3 → 4', () => {
     await seedSample(source);
     await source.conflicts.add({ id: ID.rev, table: 'sites', recordId: ID.siteGnss, reason: 'test', kept: 'local', other: { code: 'MF-09' }, otherRevisions: [], detectedAtMs: T0_MS, resolvedAtMs: null });
     await source.drafts.put({ key: 'installation-form', value: { notes: 'half typed' }, savedAtMs: T0_MS });
-    const v3Tables = source.tables.filter((t) => t.name !== 'elements').map((t) => t.name);
+    const v3Tables = source.tables.filter((t) => !['elements', 'outbox', 'syncState'].includes(t.name)).map((t) => t.name);
     const rows: Record<string, unknown[]> = {};
     for (const t of v3Tables) rows[t] = await source.table(t).toArray();
     source.close();
@@ -174,7 +174,8 @@ describe('version 3 → 4', () => {
     expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
     const after = await dumpDb(db);
     expect(after.elements).toEqual([]);
-    const { elements: _e, ...kept } = after;
+    const { elements: _e, outbox: _o, syncState: _s, ...kept } = after;
+    expect(after.outbox).toEqual([]);
     expect(kept).toEqual(before);
     for (const t of Object.keys(before)) expect(before[t].length, t).toBe(rows[t].length);
     // The new table and its index work on the migrated database.
@@ -192,7 +193,7 @@ describe('version 4 → 5', () => {
     const ids = await seedSample(source);
     const big = new Uint8Array(6_000_000).map((_, i) => (i * 7919) % 251);
     await addPhoto(source, { table: 'installations', id: ids.inst.id }, 'north', new Blob([big], { type: 'image/jpeg' }), { by: 'Ada Quill', nowMs: T0_MS + 50 });
-    const tables = source.tables.map((t) => t.name);
+    const tables = source.tables.map((t) => t.name).filter((n) => !['outbox', 'syncState'].includes(n));
     const rows: Record<string, Record<string, unknown>[]> = {};
     for (const t of tables) rows[t] = (await source.table(t).toArray()) as Record<string, unknown>[];
     source.close();
@@ -211,9 +212,13 @@ describe('version 4 → 5', () => {
 
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(5);
+    expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
     const after = await dumpDb(db);
     expect(after.photos.map((p) => (p as { sha256: unknown }).sha256)).toEqual([null, null]);
+    // The version-6 sync tables start empty.
+    expect([after.outbox, after.syncState]).toEqual([[], []]);
+    delete after.outbox;
+    delete after.syncState;
     // Every other field of every row in every table is as it was.
     expect({ ...after, photos: after.photos.map((p) => ({ ...(p as object), sha256: undefined })) }).toEqual({
       ...before,

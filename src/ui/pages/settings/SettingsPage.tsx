@@ -9,6 +9,7 @@ import { DeletedRecords } from '../logbook/DeletedRecords.tsx';
 import { ExchangeSection } from './ExchangeSection.tsx';
 import { PreferencesSection } from './PreferencesSection.tsx';
 import { StorageSection } from './StorageSection.tsx';
+import { SyncSection } from './SyncSection.tsx';
 import './settings.css';
 
 export function SettingsPage() {
@@ -25,12 +26,13 @@ export function SettingsPage() {
         <main>
           <h1 className="gm-label">Settings and data</h1>
           <p data-testid="privacy">
-            Nothing leaves this phone unless you export or share it. Glintmark has no account and sends your records nowhere.
+            Nothing leaves this phone unless you export or share it, or sign in to your team’s register below. Glintmark sends your records nowhere else.
           </p>
           <BackupReminder onSaved={changed} refreshKey={refreshKey} />
           <PreferencesSection />
           <StorageSection refreshKey={refreshKey} />
           <BackupSection onChanged={changed} />
+          <SyncSection />
           <ConflictsSection />
           <DeletedRecords />
           <ExchangeSection onChanged={changed} />
