@@ -79,7 +79,8 @@ const line = (what: string, ms: number, targetMs: number | null) =>
     `${what.padEnd(58)} ${ms.toFixed(1).padStart(8)} ms   ${targetMs === null ? '(no target)' : `target < ${targetMs} ms${ms < targetMs ? '' : '   OVER TARGET'}`}`,
   );
 
-async function seeded(name: string): Promise<GlintmarkDb> {
+/** A database holding the logbook above (also used by the backup bench). */
+export async function seeded(name: string): Promise<GlintmarkDb> {
   const db = openGlintmarkDb(name);
   const rows = buildRows();
   await db.transaction('rw', [db.sites, db.reflectors, db.installations, db.inspections, db.revisions, db.siteVisits], async () => {

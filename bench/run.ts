@@ -4,7 +4,7 @@
  */
 import os from 'node:os';
 
-const topics = ['reflector', 'orbit', 'data'] as const;
+const topics = ['reflector', 'orbit', 'data', 'backup', 'cli', 'horizon'] as const;
 
 console.log(`glintmark bench — node ${process.version}, ${os.cpus().length} cores (${os.cpus()[0]?.model ?? 'unknown cpu'})`);
 const only = process.argv[2];

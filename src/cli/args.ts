@@ -2,8 +2,15 @@
  * Minimal argument parsing for the planner: `--name value`, `--name=value`, repeatable flags and switches.
  * Every problem is a UsageError, which main() turns into one line on stderr and exit status 2.
  */
+import { boundsText, inBounds } from '../data/schema/ranges.ts';
+import { FLAG_BOUNDS } from './bounds.ts';
 export class UsageError extends Error {
   override name = 'UsageError';
+}
+
+/** The command was understood but its work failed (an unreadable or oversized input file): exit status 1. */
+export class WorkError extends Error {
+  override name = 'WorkError';
 }
 
 export interface ParsedArgs {
@@ -75,11 +82,19 @@ export class Args {
   optNumber(name: string): number | undefined {
     const s = this.optString(name);
     if (s === undefined) return undefined;
-    return parseNumber(`--${name}`, s);
+    return checkFlagBounds(name, parseNumber(`--${name}`, s));
   }
   number(name: string): number {
     const s = this.string(name);
-    return parseNumber(`--${name}`, s);
+    return checkFlagBounds(name, parseNumber(`--${name}`, s));
+  }
+  /** Every flag the user typed (for naming them in messages). */
+  given(): string[] {
+    return [...this.parsed.values.keys(), ...this.parsed.switches];
+  }
+  /** Values of every flag whose name is in `names`, e.g. the input files. */
+  valuesOf(names: readonly string[]): string[] {
+    return names.flatMap((n) => this.parsed.values.get(n) ?? []);
   }
   /** Plain arguments (not options), e.g. a sub-command or a file name; reading them marks them expected. */
   positionals(): string[] {
@@ -94,6 +109,13 @@ export class Args {
     }
     if (!this.positionalsUsed && this.parsed.positionals.length) throw new UsageError(`unexpected argument "${this.parsed.positionals[0]}"`);
   }
+}
+
+/** The flag's plausible range (bounds.ts), if it has one: a value outside it is a UsageError naming the flag. */
+function checkFlagBounds(name: string, x: number): number {
+  const b = FLAG_BOUNDS[name];
+  if (b && !inBounds(x, b)) throw new UsageError(`--${name} must be in ${boundsText(b)}, got ${x}`);
+  return x;
 }
 
 /** A decimal number (no hex, no empty string, no trailing junk). */

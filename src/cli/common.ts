@@ -56,3 +56,10 @@ export function parseLatLon(label: string, s: string): { latDeg: number; lonDeg:
 
 /** JSON-safe number: ±Infinity/NaN become null (JSON cannot hold them). */
 export const jsonNumber = (x: number): number | null => (Number.isFinite(x) ? x : null);
+
+/** "A,B,C": three numbers, e.g. an ECEF position or an ENU offset. */
+export function parseTriple(label: string, s: string, example: string): [number, number, number] {
+  const parts = s.split(',');
+  if (parts.length !== 3) throw new UsageError(`${label} must be three numbers separated by commas, e.g. ${example}; got "${s}"`);
+  return [parseNumber(`${label} [1]`, parts[0]), parseNumber(`${label} [2]`, parts[1]), parseNumber(`${label} [3]`, parts[2])];
+}

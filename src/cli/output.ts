@@ -2,11 +2,29 @@
 export interface Out {
   stdout: (s: string) => void;
   stderr: (s: string) => void;
+  /** Standard input, up to `maxBytes` (an input file given as `-`). */
+  readStdin?: (maxBytes: number) => Promise<Buffer>;
+  /** Whether stderr is a terminal (progress bars are drawn only then). */
+  stderrIsTty?: boolean;
+}
+
+async function readProcessStdin(maxBytes: number): Promise<Buffer> {
+  const chunks: Buffer[] = [];
+  let total = 0;
+  for await (const chunk of process.stdin) {
+    const b = Buffer.isBuffer(chunk) ? chunk : Buffer.from(String(chunk));
+    chunks.push(b);
+    total += b.length;
+    if (total >= maxBytes) break;
+  }
+  return Buffer.concat(chunks);
 }
 
 export const processOut: Out = {
   stdout: (s) => process.stdout.write(s),
   stderr: (s) => process.stderr.write(s),
+  readStdin: readProcessStdin,
+  stderrIsTty: process.stderr.isTTY === true,
 };
 
 /** Round for display only; JSON keeps full precision. */

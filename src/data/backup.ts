@@ -1,17 +1,23 @@
 /**
- * Full backup and restore. A backup is ONE versioned JSON document (see backup/format.ts). Restore checks
- * the whole document first (backup/validate.ts) and then replaces the record tables in ONE transaction:
+ * Full backup and restore. A backup is a ZIP archive (backup/archive.ts: records.json, each photo by its SHA-256,
+ * a manifest) or, as written before, ONE versioned JSON document (backup/format.ts); both restore. Restore checks
+ * the whole backup first (every hash, backup/validate.ts) and then replaces the record tables in ONE transaction:
  * either every row lands or none does. Drafts and meta stay as they are.
  */
 import { base64ToBytes, blobToBase64 } from './base64.ts';
 import { CURRENT_SCHEMA_VERSION, type GlintmarkDb } from './db.ts';
 import { BackupError } from './errors.ts';
+import { sha256Hex } from './hash.ts';
+import { fillPhotoHashes } from './repo/photos.ts';
 import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, type BackupDocument, type BackupPhoto, type BackupTable } from './backup/format.ts';
 import { checkBackup, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import { readBackupArchive } from './backup/archive.ts';
+import { looksLikeZip } from './backup/zipRead.ts';
 import { setMeta } from './repo/meta.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
 
 export { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, validateBackup };
+export { ARCHIVE_FORMAT, ARCHIVE_FORMAT_VERSION, ARCHIVE_MIME, exportBackupArchive, exportBackupRecords, readBackupArchive, writeBackupArchive, type ArchiveExportOptions, type ArchiveManifest } from './backup/archive.ts';
 export type { BackupCheckOptions, BackupDocument, BackupPhoto, BackupTable };
 
 export interface ExportOptions {
@@ -27,15 +33,25 @@ async function encodeBlobField(row: Record<string, unknown>): Promise<Record<str
   return { ...rest, dataBase64: await blobToBase64(blob as Blob) };
 }
 
-/** The reverse of encodeBlobField, given the mime type that goes with the bytes. */
-function decodeBlobField(row: Record<string, unknown>): Record<string, unknown> {
+/**
+ * The reverse of encodeBlobField, given the mime type that goes with the bytes. The photo's SHA-256 is computed
+ * from the bytes: filled in when the row has none (backups before schema 5), checked when it has one.
+ */
+async function decodeBlobField(row: Record<string, unknown>, path: string): Promise<Record<string, unknown>> {
   if (typeof row.dataBase64 !== 'string') return row;
   const { dataBase64, ...rest } = row;
-  return { ...rest, blob: new Blob([base64ToBytes(dataBase64 as string)], { type: String(row.mime ?? '') }) };
+  const bytes = base64ToBytes(dataBase64 as string);
+  const sha256 = await sha256Hex(bytes);
+  if (typeof row.sha256 === 'string' && row.sha256 !== sha256) {
+    const issue = { path: `${path}.sha256`, message: 'does not match the photo data (the photo is damaged)' };
+    throw new BackupError('invalid-record', `The backup was not restored: a photo is damaged. ${issue.path}: ${issue.message}`, [issue]);
+  }
+  return { ...rest, sha256, blob: new Blob([bytes], { type: String(row.mime ?? '') }) };
 }
 
 /** Read every record table in one consistent snapshot and build the backup document. */
 export async function exportBackup(db: GlintmarkDb, opts: ExportOptions): Promise<BackupDocument> {
+  await fillPhotoHashes(db);
   const raw = await db.transaction('r', [...BACKUP_TABLES], async () => {
     const out: Record<string, Record<string, unknown>[]> = {};
     for (const t of BACKUP_TABLES) out[t] = (await db.table(t).toArray()) as Record<string, unknown>[];
@@ -71,24 +87,53 @@ export interface RestoreOptions extends BackupCheckOptions {
 
 export type TableCounts = Record<BackupTable, number>;
 
-/** Rows of a validated document converted to stored rows (photo bytes back into Blobs). */
-export function storedRows(doc: BackupDocument): Record<BackupTable, Record<string, unknown>[]> {
-  const t = doc.tables as unknown as Record<BackupTable, Record<string, unknown>[]>;
-  return {
-    ...t,
-    photos: t.photos.map(decodeBlobField),
-    conflicts: t.conflicts.map((c) => ({ ...c, other: decodeBlobField(c.other as Record<string, unknown>) })),
-  };
+export type StoredRows = Record<BackupTable, Record<string, unknown>[]>;
+
+/**
+ * Rows of a validated document converted to stored rows (photo bytes back into Blobs, each photo's SHA-256
+ * computed and checked). Rejects with BackupError when a photo's bytes do not match its stated hash.
+ */
+export async function storedRows(doc: BackupDocument): Promise<StoredRows> {
+  const t = doc.tables as unknown as StoredRows;
+  const photos: Record<string, unknown>[] = [];
+  for (const [i, p] of t.photos.entries()) photos.push(await decodeBlobField(p, `photos[${i}]`));
+  const conflicts: Record<string, unknown>[] = [];
+  for (const [i, c] of t.conflicts.entries()) conflicts.push({ ...c, other: await decodeBlobField(c.other as Record<string, unknown>, `conflicts[${i}].other`) });
+  return { ...t, photos, conflicts };
+}
+
+/** A backup read and checked in full, with its rows ready to store. */
+export interface ReadBackup {
+  doc: BackupDocument;
+  hasElements: boolean;
+  rows: StoredRows;
+  /** 'archive' for a .glintmark.zip, 'json' for a JSON backup (format 1). */
+  layout: 'archive' | 'json';
 }
 
 /**
- * Validate the whole document, then write it in one transaction. Resolves with the row counts written;
- * rejects with BackupError (nothing written) or a Dexie error (nothing written).
+ * Read and check any backup: a backup archive (a Blob starting with a ZIP header), a JSON backup as a Blob or File,
+ * its text, or the parsed document. Nothing is written; throws BackupError.
+ */
+export async function readBackup(input: Blob | string | unknown, opts: BackupCheckOptions = {}): Promise<ReadBackup> {
+  if (input instanceof Blob) {
+    if (await looksLikeZip(input)) {
+      const a = await readBackupArchive(input, opts);
+      return { doc: a.doc, hasElements: a.hasElements, rows: a.rows, layout: 'archive' };
+    }
+    input = await input.text();
+  }
+  const { doc, hasElements } = checkBackup(input, opts);
+  return { doc, hasElements, rows: await storedRows(doc), layout: 'json' };
+}
+
+/**
+ * Validate the whole backup (archive or JSON, see readBackup), then write it in one transaction. Resolves with the
+ * row counts written; rejects with BackupError (nothing written) or a Dexie error (nothing written).
  * A backup without an `elements` list (written before schema 4) leaves the phone's element sets as they are.
  */
-export async function restoreBackup(db: GlintmarkDb, input: string | unknown, opts: RestoreOptions = {}): Promise<TableCounts> {
-  const { doc, hasElements } = checkBackup(input, opts);
-  const rows = storedRows(doc);
+export async function restoreBackup(db: GlintmarkDb, input: Blob | string | unknown, opts: RestoreOptions = {}): Promise<TableCounts> {
+  const { hasElements, rows } = await readBackup(input, opts);
   const tables = BACKUP_TABLES.filter((t) => hasElements || t !== 'elements');
   return db.transaction('rw', [...BACKUP_TABLES, 'siteVisits'], async () => {
     if (!opts.replace) {

@@ -38,7 +38,7 @@ export type GlintmarkDb = Dexie & {
   elements: Table<ElementSetRecord, string>;
 };
 
-export const CURRENT_SCHEMA_VERSION = 4;
+export const CURRENT_SCHEMA_VERSION = 5;
 
 /**
  * Version 1 (released 0.1). Sites had `gnssFix: boolean` instead of `positionSource`; installations had a
@@ -80,6 +80,26 @@ export const SCHEMA_V3 = {
 export const SCHEMA_V4 = {
   elements: 'id, catalogNumber',
 } as const;
+
+/**
+ * Version 5: every photo row carries `sha256` (64 lowercase hex digits of its bytes), which names the photo's
+ * file in a backup archive and lets a merge compare bytes. No new index. The upgrade cannot hash: an IndexedDB
+ * upgrade transaction commits as soon as it waits on anything that is not an IndexedDB request, and
+ * `crypto.subtle.digest` is not one. So the upgrade only marks existing photos `sha256: null`, and
+ * `fillPhotoHashes` (repo/photos.ts) hashes them after opening: the app calls it at start, and every backup export
+ * and merge calls it first, so no archive or merge ever meets a photo without its hash.
+ */
+export const SCHEMA_V5 = {} as const;
+
+/** v4 → v5: existing photos get `sha256: null` (hashed after opening by fillPhotoHashes); nothing else changes. */
+async function upgradeV4ToV5(tx: Transaction): Promise<void> {
+  await tx
+    .table('photos')
+    .toCollection()
+    .modify((p: Record<string, unknown>) => {
+      if (typeof p.sha256 !== 'string') p.sha256 = null;
+    });
+}
 
 /** The declination model the 0.1 release used for every compass reading (its only model). */
 export const V1_DECLINATION_MODEL = 'WMM2020';
@@ -129,8 +149,10 @@ export function openGlintmarkDb(name = 'glintmark'): GlintmarkDb {
   db.version(3)
     .stores(SCHEMA_V3)
     .upgrade((tx) => rebuildSiteVisits({ installations: tx.table('installations'), inspections: tx.table('inspections'), siteVisits: tx.table('siteVisits') }));
-  // Version 4: never alter once shipped; add version 5 for further changes.
+  // Version 4: never alter once shipped.
   db.version(4).stores(SCHEMA_V4);
+  // Version 5: never alter once shipped (it has an upgrade); add a new version for further changes.
+  db.version(5).stores(SCHEMA_V5).upgrade(upgradeV4ToV5);
   db.on('populate', (tx) => {
     tx.table('meta').add({ key: 'schema', value: { createdWithVersion: CURRENT_SCHEMA_VERSION, createdAtMs: Date.now() } });
   });

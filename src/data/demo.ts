@@ -1,6 +1,9 @@
 /**
- * Remove demo records (demo: true) in one step, hard-deleting them with their photos, history and
- * conflicts in ONE transaction. Real records are never touched. A demo record that a real record still
+ * Remove demo records in one step, hard-deleting them with their photos, history and
+ * conflicts in ONE transaction. A record is demo only if it was CREATED as demo: its row says demo and every
+ * 'create' revision of it (there is one) says demo too. Updates cannot change the flag (repo/entity.ts) and merge
+ * refuses versions that change it, but a row flagged by any other path (an older app, an edited file) still keeps
+ * a real creation revision, so it is never removed. Real records are never touched. A demo record that a real record still
  * points to (e.g. a real reflector placed on a demo site) is kept, and reported, so no reference dangles.
  * Demo orbital element sets (`elements` with demo: true) are removed too; nothing points to an element set.
  */
@@ -32,13 +35,21 @@ export async function removeDemoData(db: GlintmarkDb): Promise<DemoRemovalReport
     const rows = new Map<EntityTable, AnyEntity[]>();
     for (const t of ENTITY_TABLES) rows.set(t, (await db.table(t).toArray()) as AnyEntity[]);
     const key = (t: string, id: string) => `${t}:${id}`;
+    // What each record's creation revision says: true only if it has one and every one says demo.
+    const createdDemo = new Map<string, boolean>();
+    await db.revisions.each((rev) => {
+      if (rev.kind !== 'create') return;
+      const k = key(rev.table, rev.recordId);
+      const says = rev.snapshot !== null && rev.snapshot.demo === true;
+      createdDemo.set(k, (createdDemo.get(k) ?? true) && says);
+    });
     const demo = new Set<string>();
-    for (const [t, list] of rows) for (const r of list) if (r.demo === true) demo.add(key(t, r.id));
+    for (const [t, list] of rows) for (const r of list) if (r.demo === true && createdDemo.get(key(t, r.id)) === true) demo.add(key(t, r.id));
 
     // Keep every demo record reachable from a real record through parent references (to a fixpoint).
     const keptBy = new Map<string, string>();
     const queue: [EntityTable, AnyEntity][] = [];
-    for (const [t, list] of rows) for (const r of list) if (r.demo !== true) queue.push([t, r]);
+    for (const [t, list] of rows) for (const r of list) if (!demo.has(key(t, r.id))) queue.push([t, r]);
     const byKey = new Map<string, [EntityTable, AnyEntity]>();
     for (const [t, list] of rows) for (const r of list) byKey.set(key(t, r.id), [t, r]);
     while (queue.length) {

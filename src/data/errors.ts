@@ -102,7 +102,9 @@ export type BackupErrorKind =
   | 'duplicate-id'
   | 'photo-too-large'
   | 'dangling-reference'
-  | 'would-replace';
+  | 'would-replace'
+  /** A backup archive that is cut short, fails a checksum or hash, or lacks, adds or miscounts an entry. */
+  | 'damaged-archive';
 
 /** A backup document was refused; the database was not changed. */
 export class BackupError extends Error {

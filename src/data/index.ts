@@ -13,6 +13,7 @@ export { geometryRepo, inspectionRepo, installationRepo, reflectorRepo } from '.
 export { history, versionAt } from './repo/revisions.ts';
 export {
   addPhoto,
+  fillPhotoHashes,
   getPhoto,
   listPhotos,
   softDeletePhoto,
@@ -45,6 +46,16 @@ export {
 export {
   backupToJson,
   exportBackup,
+  exportBackupArchive,
+  exportBackupRecords,
+  writeBackupArchive,
+  readBackup,
+  ARCHIVE_FORMAT,
+  ARCHIVE_FORMAT_VERSION,
+  ARCHIVE_MIME,
+  type ArchiveExportOptions,
+  type ArchiveManifest,
+  type ReadBackup,
   recordBackupSaved,
   restoreBackup,
   validateBackup,

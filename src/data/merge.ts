@@ -3,7 +3,8 @@
  *
  * Rows match by id. For each incoming row of sites … inspections and photos:
  *  - not here → added;
- *  - same content (photo bytes never change after creation, so photos compare by their fields) → unchanged;
+ *  - same content → unchanged (photos compare their bytes too: the same photo id arriving with other bytes is a
+ *    conflict, ours kept, since photo bytes never change after creation);
  *  - higher rev → the incoming row replaces ours ("updated"); if our current version is not in the incoming
  *    history (both phones edited), ours is kept in the conflicts table and reported;
  *  - lower rev → ours stays ("localNewer"); if the incoming version is not in our history, it is kept as a conflict;
@@ -15,15 +16,16 @@
  * the history of an incoming version that was not applied travels with its conflict row instead.
  * Orbital element sets (`elements`) merge by the rules in mergeElements.ts.
  */
-import { storedRows } from './backup.ts';
+import { readBackup } from './backup.ts';
 import type { BackupTable } from './backup/format.ts';
 import { BACKUP_TABLES } from './backup/format.ts';
-import { referenceIssues, validateBackup, type BackupCheckOptions } from './backup/validate.ts';
+import { documentLookup, linkIssues, referenceIssues, type BackupCheckOptions } from './backup/validate.ts';
 import type { GlintmarkDb } from './db.ts';
 import { deepEqual } from './equal.ts';
 import { BackupError } from './errors.ts';
 import { mergeElementSets } from './mergeElements.ts';
 import { resolveContext, type WriteContext } from './repo/context.ts';
+import { fillPhotoHashes } from './repo/photos.ts';
 import { makeRevision } from './repo/revisions.ts';
 import { liveSiteWithCode } from './repo/sites.ts';
 import { rebuildSiteVisits } from './repo/siteVisits.ts';
@@ -55,17 +57,39 @@ const withoutBlob = (r: Record<string, unknown>) => {
   return rest;
 };
 
+/** Whether two blobs hold the same bytes. */
+async function sameBytes(a: Blob, b: Blob): Promise<boolean> {
+  if (a.size !== b.size) return false;
+  const [x, y] = await Promise.all([a.arrayBuffer(), b.arrayBuffer()]);
+  const u = new Uint8Array(x);
+  const w = new Uint8Array(y);
+  for (let i = 0; i < u.length; i++) if (u[i] !== w[i]) return false;
+  return true;
+}
+
 /** The revision that produced `row` (same rev and time), if the list has it. */
 const headOf = (row: Row, revs: readonly RevisionRecord[]) => revs.find((r) => r.rev === row.rev && r.atMs === row.updatedAtMs);
 
-export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts: MergeOptions): Promise<MergeReport> {
+/** Merge a backup archive (Blob) or a JSON backup (Blob, text or document); everything is checked before writing. */
+export async function mergeBackup(db: GlintmarkDb, input: Blob | string | unknown, opts: MergeOptions): Promise<MergeReport> {
   const { by, nowMs } = resolveContext(opts);
-  const doc = validateBackup(input, { maxPhotoBytes: opts.maxPhotoBytes, checkReferences: false });
-  const rows = storedRows(doc);
+  const { doc, rows } = await readBackup(input, { maxPhotoBytes: opts.maxPhotoBytes, checkReferences: false });
+  // Photos stored before schema 5 get their hash first, so photos compare by their bytes' hash like any field.
+  await fillPhotoHashes(db);
   const incomingRevs = new Map<string, RevisionRecord[]>();
   for (const r of doc.tables.revisions) incomingRevs.set(`${r.table}:${r.recordId}`, [...(incomingRevs.get(`${r.table}:${r.recordId}`) ?? []), r]);
   for (const list of incomingRevs.values()) list.sort((x, y) => x.rev - y.rev || x.atMs - y.atMs || x.id.localeCompare(y.id));
   const revsOf = (t: VersionedTable, id: string) => incomingRevs.get(`${t}:${id}`) ?? [];
+
+  // Photo bytes are read before the transaction (a Blob read is not an IndexedDB request and would end it).
+  // Photos are never changed after creation, so what is read here is what the transaction sees.
+  const photosWithOtherBytes = new Set<string>();
+  const incomingPhotos = rows.photos as { id: string; blob?: unknown }[];
+  const localPhotos = await db.photos.bulkGet(incomingPhotos.map((p) => p.id));
+  for (const [i, mine] of localPhotos.entries()) {
+    const theirs = incomingPhotos[i].blob;
+    if (mine && theirs instanceof Blob && !(await sameBytes(mine.blob, theirs))) photosWithOtherBytes.add(mine.id);
+  }
 
   const report = Object.fromEntries(
     BACKUP_TABLES.map((t) => [t, { added: 0, updated: 0, unchanged: 0, localNewer: 0, conflicts: [] }]),
@@ -77,6 +101,15 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
     const docIds = new Map(BACKUP_TABLES.map((t) => [t, new Set(rows[t].map((r) => r.id as string))]));
     const refs = referenceIssues(doc.tables, (t, id) => docIds.get(t)?.has(id) === true || local.get(t)?.has(id) === true);
     if (refs.length) throw new BackupError('dangling-reference', `The backup was not merged: ${refs[0].path} ${refs[0].message}.`, refs);
+    // The repositories' link rules, each row checked against the file's rows, then this phone's (read before any write).
+    const inDoc = documentLookup(doc.tables);
+    const localRows = new Map<string, Map<string, Record<string, unknown>>>();
+    for (const t of [...VERSIONED_TABLES]) localRows.set(t, new Map((await db.table(t).toArray()).map((r: Record<string, unknown>) => [r.id as string, r])));
+    const links = linkIssues(doc.tables, (t, id) => inDoc(t, id) ?? localRows.get(t)?.get(id));
+    if (links.length) {
+      const shown = links.slice(0, 5).map((i) => `${i.path}: ${i.message}`).join('; ');
+      throw new BackupError('dangling-reference', `The backup was not merged: some records are linked in a way this app never writes. ${shown}${links.length > 5 ? ` (and ${links.length - 5} more)` : ''}`, links);
+    }
 
     const skipRevisionsOf = new Set<string>();
     const keepConflict = async (table: VersionedTable, recordId: string, kept: 'local' | 'incoming', other: Record<string, unknown>, otherRevisions: RevisionRecord[], reason: string) => {
@@ -115,8 +148,19 @@ export async function mergeBackup(db: GlintmarkDb, input: string | unknown, opts
           r.added++;
           continue;
         }
+        if (table === 'photos' && photosWithOtherBytes.has(incoming.id)) {
+          skipRevisionsOf.add(`${table}:${incoming.id}`);
+          await keepConflict(table, incoming.id, 'local', incoming, theirRevs, 'the same photo arrived with different bytes (photos never change after they are taken); the local photo is kept');
+          continue;
+        }
         if (deepEqual(withoutBlob(mine), withoutBlob(incoming))) {
           r.unchanged++;
+          continue;
+        }
+        if ('demo' in mine && incoming.demo !== mine.demo) {
+          // Demo is a property of creation (repo/entity.ts): a version that flips it is never applied.
+          skipRevisionsOf.add(`${table}:${incoming.id}`);
+          await keepConflict(table, incoming.id, 'local', incoming, theirRevs, `the incoming version marks this record as ${incoming.demo === true ? 'demo data' : 'real data'}; whether a record is demo is set when it is created, so the local version is kept`);
           continue;
         }
         const myRevs = await db.revisions.where('[table+recordId]').equals([table, incoming.id]).toArray();

@@ -1,5 +1,5 @@
 /**
- * Record shapes of the Logbook store (schema version 4). Every figure carries its unit in its name
+ * Record shapes of the Logbook store (schema version 5). Every figure carries its unit in its name
  * because IndexedDB rows and JSON exports keep nothing else. Conventions follow src/core/CONVENTIONS.md:
  * WGS84 degrees, ellipsoidal heights, azimuths clockwise from true north in [0, 360), declination east-positive,
  * instants in ms since 1970-01-01T00:00Z (`…AtMs`); exports add ISO 8601 UTC strings.
@@ -177,6 +177,11 @@ export interface PhotoRecord extends RecordMeta {
   mime: string;
   blob: Blob;
   bytes: number;
+  /**
+   * SHA-256 of the bytes, 64 lowercase hex digits (schema 5). Null only for a photo stored before schema 5 until
+   * the pass after opening (`fillPhotoHashes`) has hashed it; backups and merges fill it in first.
+   */
+  sha256: string | null;
   takenAtMs: number;
 }
 

@@ -31,11 +31,39 @@ export interface SaveOptions {
 /** The platform pieces this module uses; tests pass stubs. */
 export interface FileSaverDeps {
   native: boolean;
-  writeFile(o: { path: string; data: string; directory: Directory; encoding: Encoding; recursive: boolean }): Promise<{ uri: string }>;
+  /** `encoding` absent: `data` is base64 of the bytes (Capacitor Filesystem). */
+  writeFile(o: { path: string; data: string; directory: Directory; encoding?: Encoding; recursive: boolean }): Promise<{ uri: string }>;
   checkPermissions(): Promise<{ publicStorage: string }>;
   requestPermissions(): Promise<{ publicStorage: string }>;
   /** Web: offer the blob as a download named `name`. */
   download(name: string, blob: Blob): void;
+  /** Native: add base64 bytes to the end of a file written by writeFile (archives are written in pieces). */
+  appendFile?(o: { path: string; data: string; directory: Directory }): Promise<void>;
+  /**
+   * Web: the File System Access save dialog, when the browser has one (`showSaveFilePicker`). Resolves with a
+   * writer whose `write` resolves once the file is written and closed, or null when the crew cancelled.
+   */
+  pickSaveFile?: ((name: string) => Promise<{ write: (blob: Blob) => Promise<void> } | null>) | null;
+}
+
+/** Where a backup archive went, and whether the write is known to have finished. */
+export interface SavedArchive extends SavedFile {
+  /**
+   * True when the file is known to be written (native write resolved, or the save dialog's write resolved).
+   * False for a plain browser download, whose end the page cannot see: ask the crew before counting it as saved.
+   */
+  written: boolean;
+}
+
+export type SaveArchiveResult = Result<SavedArchive, SaveFileError>;
+
+/** Bytes per native write: a multiple of 3, so each piece's base64 stands alone (≈4 MB of text per call). */
+const NATIVE_CHUNK = 3 * 1024 * 1024;
+
+function bytesToBase64(bytes: Uint8Array): string {
+  let bin = '';
+  for (let i = 0; i < bytes.length; i += 0x8000) bin += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+  return btoa(bin);
 }
 
 const errorText = (e: unknown) => (e instanceof Error ? e.message : String(e));
@@ -67,8 +95,59 @@ export function createFileSaver(deps: FileSaverDeps) {
       return err({ message: `The file could not be written to the Documents folder: ${errorText(e)}. Check the phone's free space and storage permission for Glintmark.` });
     }
   }
+  /**
+   * Save a backup archive. `produce` makes the archive; on the web with a save dialog the dialog is shown first
+   * (it needs the crew's tap, which a long export would outlast), then the archive is made and written.
+   * Native: written to Documents in pieces of 3 MB (writeFile, then appendFile), so the bridge never carries the
+   * whole archive at once.
+   */
+  async function saveArchiveFile(name: string, produce: () => Promise<Blob>, opts: SaveOptions = {}): Promise<SaveArchiveResult> {
+    if (!SAFE_NAME.test(name)) return err({ message: `The file name ${JSON.stringify(name)} is not allowed (letters, digits, dot, dash and underscore only).` });
+    if (!deps.native) {
+      if (deps.pickSaveFile) {
+        let target: { write: (blob: Blob) => Promise<void> } | null;
+        try {
+          target = await deps.pickSaveFile(name);
+        } catch (e) {
+          return err({ message: `The browser did not open the save dialog: ${errorText(e)}` });
+        }
+        if (!target) return err({ message: 'No file was chosen, so the backup was not saved.' });
+        try {
+          await target.write(await produce());
+          return ok({ where: `the file you chose (${name})`, written: true });
+        } catch (e) {
+          return err({ message: `The backup file could not be written: ${errorText(e)}` });
+        }
+      }
+      try {
+        deps.download(name, await produce());
+        return ok({ where: `your browser's downloads (${name})`, written: false });
+      } catch (e) {
+        return err({ message: `The browser did not save the file: ${errorText(e)}` });
+      }
+    }
+    try {
+      const perm = await deps.checkPermissions();
+      if (perm.publicStorage !== 'granted' && opts.askPermission !== false) await deps.requestPermissions();
+    } catch {
+      /* some platforms do not report this permission; the write below says whether it worked */
+    }
+    const blob = await produce();
+    try {
+      for (let at = 0; at === 0 || at < blob.size; at += NATIVE_CHUNK) {
+        const data = bytesToBase64(new Uint8Array(await blob.slice(at, at + NATIVE_CHUNK).arrayBuffer()));
+        if (at === 0) await deps.writeFile({ path: name, data, directory: Directory.Documents, recursive: true });
+        else if (deps.appendFile) await deps.appendFile({ path: name, data, directory: Directory.Documents });
+        else throw new Error('appending to a file is not available');
+      }
+      return ok({ where: `Documents/${name}`, written: true });
+    } catch (e) {
+      return err({ message: `The file could not be written to the Documents folder: ${errorText(e)}. Check the phone's free space and storage permission for Glintmark.` });
+    }
+  }
   return {
     saveTextFile,
+    saveArchiveFile,
     /** A backup document (JSON text). */
     saveBackupFile: (name: string, text: string, opts?: SaveOptions) => saveTextFile(name, text, 'application/json', opts),
   };
@@ -99,10 +178,45 @@ const saver = () =>
     checkPermissions: () => Filesystem.checkPermissions(),
     requestPermissions: () => Filesystem.requestPermissions(),
     download: browserDownload,
+    appendFile: async (o) => {
+      await Filesystem.appendFile(o);
+    },
+    pickSaveFile: browserSavePicker(),
   }));
+
+interface SavePickerWindow {
+  showSaveFilePicker?: (o: { suggestedName: string; types?: { description: string; accept: Record<string, string[]> }[] }) => Promise<{
+    createWritable: () => Promise<{ write: (b: Blob) => Promise<void>; close: () => Promise<void> }>;
+  }>;
+}
+
+/** The File System Access save dialog where the browser has one (Chromium on desktop), else null. */
+function browserSavePicker(): FileSaverDeps['pickSaveFile'] {
+  const w = (typeof window === 'undefined' ? {} : window) as SavePickerWindow;
+  const show = w.showSaveFilePicker;
+  if (typeof show !== 'function') return null;
+  return async (name) => {
+    try {
+      const handle = await show.call(w, { suggestedName: name, types: [{ description: 'Glintmark backup', accept: { 'application/zip': ['.zip'] } }] });
+      return {
+        write: async (blob) => {
+          const out = await handle.createWritable();
+          await out.write(blob);
+          await out.close(); // resolves once the file is written in place
+        },
+      };
+    } catch (e) {
+      if (e instanceof Error && e.name === 'AbortError') return null;
+      throw e;
+    }
+  };
+}
 
 /** Save any text file (exports): native → Documents, web → a download. */
 export const saveTextFile = (name: string, text: string, mime: string, opts?: SaveOptions): Promise<SaveFileResult> => saver().saveTextFile(name, text, mime, opts);
+
+/** Save a backup archive: native → Documents (in pieces), web → the save dialog where present, else a download. */
+export const saveBackupArchive = (name: string, produce: () => Promise<Blob>, opts?: SaveOptions): Promise<SaveArchiveResult> => saver().saveArchiveFile(name, produce, opts);
 
 /** Save a backup file: native → Documents, web → a download. */
 export const saveBackupFile = (name: string, text: string, opts?: SaveOptions): Promise<SaveFileResult> => saver().saveBackupFile(name, text, opts);

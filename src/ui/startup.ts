@@ -1,5 +1,5 @@
 /** Work done once when the app starts: open the logbook, ask for persistent storage once, restore the task. */
-import { getAppDb, getMeta, requestPersistentStorage } from '../data/index.ts';
+import { fillPhotoHashes, getAppDb, getMeta, requestPersistentStorage } from '../data/index.ts';
 import { isNativeApp, watchLifecycle } from '../sensors/lifecycle.ts';
 import { persistWorkflow, restoreWorkflow } from './state/persistWorkflow.ts';
 
@@ -11,6 +11,8 @@ export async function startApp(): Promise<void> {
   } catch {
     /* an unreadable draft is dropped; the records themselves are untouched */
   }
+  // Photos stored before schema 5 get their SHA-256 (a pass after opening; see src/data/db.ts version 5).
+  void fillPhotoHashes(db).catch(() => undefined);
   try {
     if ((await getMeta(db, 'persistence')) === undefined) await requestPersistentStorage({ db });
   } catch {

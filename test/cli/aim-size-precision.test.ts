@@ -28,10 +28,10 @@ describe('glintmark aim', () => {
   it.each([
     [['aim', '--heading', '10'], /missing --incidence/],
     [['aim', '--incidence', 'abc', '--heading', '10'], /--incidence must be a number, got "abc"/],
-    [['aim', '--incidence', '95', '--heading', '10'], /incidenceDeg must be in \(0, 90\)°, got 95/],
+    [['aim', '--incidence', '95', '--heading', '10'], /--incidence must be in \(0, 90\) degrees, got 95/],
     [['aim', '--incidence', '30', '--heading', '10', '--look', 'up'], /look must be one of right, left/],
     [['aim', '--incidence', '30', '--heading', '10', '--shape', 'round'], /shape must be one of triangular, square/],
-    [['aim', '--incidence', '30', '--heading', '10', '--edge', '0'], /edge must be greater than 0 m/],
+    [['aim', '--incidence', '30', '--heading', '10', '--edge', '0'], /--edge must be in \(0, 20\] m/],
     [['aim', '--incidence', '30', '--heading', '10', '--band', 'Q'], /band must be one of L, S, C, X, Ku/],
     [['aim', '--incidence', '30', '--heading', '10', '--band', 'C', '--wavelength', '0.05'], /give only one of --wavelength, --frequency, --band/],
     [['aim', '--incidence', '30', '--heading', '10', '--tilt', '3'], /unknown option --tilt/],
@@ -57,8 +57,8 @@ describe('glintmark size', () => {
     [['size', '--wavelength', '0.05', '--shape', 'triangular', '--clutter-db', '-10', '--scr-db', '20'], /give --cell-area M2, or all of/],
     [['size', '--wavelength', '0.05', '--shape', 'triangular', '--clutter-db', '-10', '--scr-db', '20', '--cell-area', '100', '--incidence', '30'], /either --cell-area or the three/],
     [['size', '--wavelength', '0.05', '--shape', 'triangular', '--clutter-db', 'x', '--scr-db', '20', '--cell-area', '100'], /--clutter-db must be a number/],
-    [['size', '--wavelength', '-1', '--shape', 'triangular', '--clutter-db', '-10', '--scr-db', '20', '--cell-area', '100'], /wavelength must be greater than 0 m/],
-    [['size', '--wavelength', '0.05', '--shape', 'triangular', '--clutter-db', '-10', '--scr-db', '20', '--range-resolution', '3', '--azimuth-resolution', '20', '--incidence', '0'], /incidenceDeg must be in/],
+    [['size', '--wavelength', '-1', '--shape', 'triangular', '--clutter-db', '-10', '--scr-db', '20', '--cell-area', '100'], /--wavelength must be in \(0, 10\] m/],
+    [['size', '--wavelength', '0.05', '--shape', 'triangular', '--clutter-db', '-10', '--scr-db', '20', '--range-resolution', '3', '--azimuth-resolution', '20', '--incidence', '0'], /--incidence must be in/],
     [['size', '--wavelength', '0.05', '--clutter-db', '-10', '--scr-db', '20', '--cell-area', '100'], /missing --shape/],
   ])('rejects bad input %#', async (argv, msg) => expectUsageError(argv, msg));
 });
@@ -69,6 +69,8 @@ describe('glintmark precision', () => {
     expect(j.scrDb).toBeCloseTo(20, 9);
     expect(j.phaseStdRad).toBeCloseTo(0.0707107, 6);
     expect(j.losStdMm).toBeCloseTo(0.3121, 4); // REFERENCES.md §2 worked check [derived]
+    // Difference of two independent images with equal noise: variance adds, so √2 × 0.3121 mm.
+    expect(j.losStdDiffMm).toBeCloseTo(0.3121 * 1.41421356, 4);
   });
   it('warns when SCR is too low for the approximation', async () => {
     const j = (await runCli(['precision', '--rcs-dbsm', '15', '--clutter-db', '-10', '--cell-area', '100', '--wavelength', '0.05', '--json'])).json() as Obj;
@@ -77,7 +79,7 @@ describe('glintmark precision', () => {
   it.each([
     [['precision', '--rcs-dbsm', '30', '--clutter-db', '-10', '--wavelength', '0.05'], /missing --cell-area/],
     [['precision', '--rcs-dbsm', 'NaN', '--clutter-db', '-10', '--cell-area', '100', '--wavelength', '0.05'], /--rcs-dbsm must be a number/],
-    [['precision', '--rcs-dbsm', '30', '--clutter-db', '-10', '--cell-area', '-5', '--wavelength', '0.05'], /cellArea must be greater than 0/],
+    [['precision', '--rcs-dbsm', '30', '--clutter-db', '-10', '--cell-area', '-5', '--wavelength', '0.05'], /--cell-area must be in \(0, 100000000\] m²/],
     [['precision', '--rcs-dbsm', '30', '--clutter-db', '-10', '--cell-area', '100', '--wavelength', '0.05', '--extra', '1'], /unknown option --extra/],
   ])('rejects bad input %#', async (argv, msg) => expectUsageError(argv, msg));
 });

@@ -1,14 +1,28 @@
 import { describe, expect, it } from 'vitest';
+import vectors from '../fixtures/geodesy/geodesic_vectors.json';
 import { expectUsageError, runCli } from './run.ts';
 
 describe('glintmark bearing', () => {
-  it('prints { azimuthDeg, distanceM }: Wellington → Salamanca (GeographicLib example; Karney 2013 method)', async () => {
-    const r = await runCli(['bearing', '--from', '-41.32,174.81', '--to', '40.96,-5.50', '--json']);
+  // Karney (2013), "Algorithms for geodesics", J. Geodesy 87:43-55: Table 2 (direct problem, solved here as the
+  // inverse) and Table 4 (a nearly antipodal line), as copied in test/fixtures/geodesy/geodesic_vectors.json.
+  // Tolerances follow the printed precision: Table 2's end point to 1e-11° (≈ 1 µm), Table 4 to 6 decimals / 10 µm.
+  it('prints { azimuthDeg, distanceM } matching Karney (2013) Table 2: 10 000 km at 30° from 40° N', async () => {
+    const t = vectors.karney_table2_direct;
+    const r = await runCli(['bearing', '--from', `${t.lat1},${t.lon1}`, '--to', `${t.lat2},${t.lon2}`, '--json']);
     expect(r.code).toBe(0);
     const j = r.json() as Record<string, number>;
     expect(Object.keys(j).sort()).toEqual(['azimuthDeg', 'distanceM']);
-    expect(Math.abs(j.azimuthDeg - 161.067669986)).toBeLessThan(1e-9);
-    expect(Math.abs(j.distanceM - 19_959_679.267354)).toBeLessThan(1e-6);
+    expect(Math.abs(j.azimuthDeg - t.azi1)).toBeLessThan(1e-8);
+    expect(Math.abs(j.distanceM - t.s12_m)).toBeLessThan(1e-5);
+  });
+
+  it('matches Karney (2013) Table 4, a nearly antipodal line', async () => {
+    const t = vectors.karney_table4_nearly_antipodal;
+    const r = await runCli(['bearing', '--from', `${t.lat1},0`, '--to', `${t.lat2},${t.lon12}`, '--json']);
+    expect(r.code).toBe(0);
+    const j = r.json() as Record<string, number>;
+    expect(Math.abs(j.azimuthDeg - t.azi1)).toBeLessThan(1e-6);
+    expect(Math.abs(j.distanceM - t.s12_m)).toBeLessThan(1e-5);
   });
 
   it('prints a table with the back azimuth', async () => {

@@ -63,7 +63,7 @@ describe('glintmark compromise', () => {
     [['compromise', ...REFL, '--geometry', '40,190,up'], /--geometry look must be one of right, left/],
     [['compromise', ...REFL, '--geometry', '95,190,right'], /incidenceDeg must be in \(0, 90\)°, got 95/],
     [['compromise', ...REFL, '--geometry', '40,190,right', '--max-loss', 'lots'], /--max-loss must be a number/],
-    [['compromise', ...REFL, '--geometry', '40,190,right', '--max-loss', '-1'], /maxAcceptableLossDb must be ≥ 0 dB, got -1/],
+    [['compromise', ...REFL, '--geometry', '40,190,right', '--max-loss', '-1'], /--max-loss must be in \[0, 60\] dB, got -1/],
     [['compromise', '--shape', 'cone', ...REFL, '--geometry', '40,190,right'], /shape must be one of triangular, square, got "cone"/],
     [['compromise', ...REFL, '--geometry', '40,190,right', '--site', 'x'], /unknown option --site/],
   ])('rejects bad input %#', async (argv, msg) => expectUsageError(argv, msg));

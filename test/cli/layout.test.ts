@@ -24,7 +24,7 @@ describe('glintmark layout', () => {
   it('bad input: missing, non-numeric, out of range, unknown option', async () => {
     await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '30'], /missing --baseline/);
     await expectUsageError(['layout', '--reference-azimuth', 'N', '--target-azimuth', '30', '--baseline', '10'], /--reference-azimuth must be a number/);
-    await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '30', '--baseline', '0'], /--baseline must be greater than 0/);
+    await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '30', '--baseline', '0'], /--baseline must be in \(0, 100000\] m/);
     await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '400', '--baseline', '10'], /--target-azimuth must be in \[-360, 360\]°/);
     await expectUsageError(['layout', '--reference-azimuth', '0', '--target-azimuth', '30', '--baseline', '10', '--units', 'ft'], /unknown option --units/);
   });

@@ -16,7 +16,7 @@ describe('backup and restore', () => {
   it('writes one versioned JSON document with photos inline as base64', async () => {
     const ids = await seedSample(db());
     const doc = await exportBackup(db(), { appVersion: '0.1.0', nowMs: T0_MS });
-    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 1, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { name: 'glintmark', version: '0.1.0', schemaVersion: 4 } });
+    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 1, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { name: 'glintmark', version: '0.1.0', schemaVersion: 5 } });
     expect(doc.tables.photos).toEqual([expect.objectContaining({ id: ids.photo.id, mime: 'image/jpeg', bytes: 5, dataBase64: 'AQID+vs=' })]);
     expect(doc.tables.photos[0]).not.toHaveProperty('blob');
     expect(JSON.parse(backupToJson(doc))).toEqual(doc);
@@ -63,7 +63,9 @@ describe('backup and restore', () => {
   it('refuses another format and a newer format version', async () => {
     const doc = await seededDoc();
     await expectRefused({ type: 'FeatureCollection', features: [] }, 'wrong-format', 'This file is not a Glintmark backup (its format is null, expected "glintmark-backup")');
-    await expectRefused({ ...doc, formatVersion: 2 }, 'wrong-version', 'This backup was made by a newer Glintmark (backup format 2; this app reads format 1). Update the app');
+    await expectRefused({ ...doc, formatVersion: 3 }, 'wrong-version', 'This backup was made by a newer Glintmark (backup format 3; this app reads format 1). Update the app');
+    // Format 2 is the records.json inside a backup archive: useless without the archive's photos.
+    await expectRefused({ ...doc, formatVersion: 2 }, 'wrong-format', 'This is the records file from inside a backup archive, without its photos.');
     await expectRefused(JSON.stringify({ ...doc, tables: { ...doc.tables, sites: undefined } }), 'invalid-record', 'its header or table lists are damaged. tables.sites: is required');
   });
 
@@ -92,6 +94,24 @@ describe('backup and restore', () => {
     await expectRefused(doc, 'photo-too-large', 'photos[0]: is 5 bytes, more than the 4 bytes photo limit', { maxPhotoBytes: 4 });
     doc.tables.photos[0].dataBase64 = 'not base64!';
     await expectRefused(doc, 'invalid-record', 'photos[0].dataBase64: is not valid base64');
+  });
+
+  it('carries the SHA-256 of each photo, refuses a photo whose bytes do not match it, and fills it in for older backups', async () => {
+    const doc = await seededDoc();
+    // SHA-256 of the seed photo's five bytes 01 02 03 FA FB, computed independently with Node's OpenSSL.
+    const { createHash } = await import('node:crypto');
+    const expected = createHash('sha256').update(Buffer.from([1, 2, 3, 250, 251])).digest('hex');
+    expect(doc.tables.photos[0].sha256).toBe(expected);
+    await expectRefused({ ...doc, tables: { ...doc.tables, photos: [{ ...doc.tables.photos[0], sha256: '0'.repeat(64) }] } }, 'invalid-record', 'photos[0].sha256: does not match the photo data');
+    await expectRefused({ ...doc, tables: { ...doc.tables, photos: [{ ...doc.tables.photos[0], sha256: 'ABC' }] } }, 'invalid-record', 'sha256 must be 64 lowercase hexadecimal digits');
+    const { sha256: _h, ...old } = doc.tables.photos[0];
+    const other = openGlintmarkDb(`restore-${crypto.randomUUID()}`);
+    try {
+      await restoreBackup(other, { ...doc, tables: { ...doc.tables, photos: [old] } });
+      expect((await other.photos.get(old.id))?.sha256).toBe(expected);
+    } finally {
+      await other.delete();
+    }
   });
 
   it('refuses records that point to missing records', async () => {

@@ -1,9 +1,11 @@
 import 'fake-indexeddb/auto';
+import { createHash } from 'node:crypto';
 import Dexie from 'dexie';
 import { afterEach, describe, expect, it } from 'vitest';
-import { CURRENT_SCHEMA_VERSION, SCHEMA_V1, SCHEMA_V2, SCHEMA_V3, V1_DECLINATION_MODEL, openGlintmarkDb, type GlintmarkDb } from '../../src/data/db.ts';
+import { CURRENT_SCHEMA_VERSION, SCHEMA_V1, SCHEMA_V2, SCHEMA_V3, SCHEMA_V4, V1_DECLINATION_MODEL, openGlintmarkDb, type GlintmarkDb } from '../../src/data/db.ts';
 import { elementRepo } from '../../src/data/repo/elements.ts';
 import { getMeta } from '../../src/data/repo/meta.ts';
+import { addPhoto, fillPhotoHashes } from '../../src/data/repo/photos.ts';
 import { parseFields, splitRow } from '../../src/data/schema/validate.ts';
 import type { EntityTable } from '../../src/data/types.ts';
 import { GLINT_A } from './elementSets.ts';
@@ -71,7 +73,7 @@ describe('schema versions', () => {
     const db = openGlintmarkDb(uniqueName());
     await db.open();
     expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
-    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 4 });
+    expect(await getMeta(db, 'schema')).toMatchObject({ createdWithVersion: 5 });
     db.close();
   });
 
@@ -80,7 +82,7 @@ describe('schema versions', () => {
     await writeV1(name);
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(4);
+    expect(db.verno).toBe(5);
 
     const { gnssFix: _g1, ...siteGnss } = v1Site(ID.siteGnss, 'MF-01', true);
     const { gnssFix: _g2, ...siteTyped } = v1Site(ID.siteTyped, 'MF-02', false);
@@ -169,7 +171,7 @@ describe('version 3 → 4', () => {
 
     const db = openGlintmarkDb(name);
     await db.open();
-    expect(db.verno).toBe(4);
+    expect(db.verno).toBe(CURRENT_SCHEMA_VERSION);
     const after = await dumpDb(db);
     expect(after.elements).toEqual([]);
     const { elements: _e, ...kept } = after;
@@ -178,6 +180,56 @@ describe('version 3 → 4', () => {
     // The new table and its index work on the migrated database.
     const [set] = await elementRepo.put(db, [GLINT_A], { nowMs: T0_MS });
     expect((await db.elements.where('catalogNumber').equals('99001').toArray()).map((r) => r.id)).toEqual([set.id]);
+    db.close();
+  });
+});
+
+describe('version 4 → 5', () => {
+  it('marks existing photos sha256: null, changes nothing else, and the pass after opening hashes them', async () => {
+    // Realistic rows from today's repositories, two photos (one 6 MB), written into a real version-4 database the
+    // way the 0.4 app stored them: photo rows without sha256.
+    const source = openGlintmarkDb(uniqueName());
+    const ids = await seedSample(source);
+    const big = new Uint8Array(6_000_000).map((_, i) => (i * 7919) % 251);
+    await addPhoto(source, { table: 'installations', id: ids.inst.id }, 'north', new Blob([big], { type: 'image/jpeg' }), { by: 'Ada Quill', nowMs: T0_MS + 50 });
+    const tables = source.tables.map((t) => t.name);
+    const rows: Record<string, Record<string, unknown>[]> = {};
+    for (const t of tables) rows[t] = (await source.table(t).toArray()) as Record<string, unknown>[];
+    source.close();
+    rows.photos = rows.photos.map(({ sha256: _h, ...p }) => p);
+    expect(rows.photos).toHaveLength(2);
+
+    const name = uniqueName();
+    const raw = new Dexie(name);
+    raw.version(1).stores(SCHEMA_V1);
+    raw.version(2).stores(SCHEMA_V2);
+    raw.version(3).stores(SCHEMA_V3);
+    raw.version(4).stores(SCHEMA_V4);
+    for (const t of tables) await raw.table(t).bulkAdd(rows[t]);
+    const before = await dumpDb(raw as unknown as GlintmarkDb);
+    raw.close();
+
+    const db = openGlintmarkDb(name);
+    await db.open();
+    expect(db.verno).toBe(5);
+    const after = await dumpDb(db);
+    expect(after.photos.map((p) => (p as { sha256: unknown }).sha256)).toEqual([null, null]);
+    // Every other field of every row in every table is as it was.
+    expect({ ...after, photos: after.photos.map((p) => ({ ...(p as object), sha256: undefined })) }).toEqual({
+      ...before,
+      photos: before.photos.map((p) => ({ ...(p as object), sha256: undefined })),
+    });
+
+    expect(await fillPhotoHashes(db)).toBe(2);
+    expect(await fillPhotoHashes(db)).toBe(0); // once hashed, nothing more to do
+    for (const p of rows.photos) {
+      const stored = await db.photos.get(p.id as string);
+      // Independent hash: Node's OpenSSL SHA-256 over the bytes written into the old database.
+      const bytes = Buffer.from(await (p.blob as Blob).arrayBuffer());
+      expect(stored?.sha256).toBe(createHash('sha256').update(bytes).digest('hex'));
+      expect(stored?.rev).toBe(p.rev); // not a crew edit: no rev bump
+    }
+    expect(await db.revisions.count()).toBe(rows.revisions.length); // and no history row
     db.close();
   });
 });

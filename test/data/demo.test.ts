@@ -4,7 +4,10 @@ import { removeDemoData } from '../../src/data/demo.ts';
 import { geometryRepo, inspectionRepo, installationRepo, reflectorRepo } from '../../src/data/repo/entities.ts';
 import { addPhoto } from '../../src/data/repo/photos.ts';
 import { siteRepo } from '../../src/data/repo/sites.ts';
-import { BY, dumpDb, geometryFields, inspectionFields, installationFields, reflectorFields, seedSample, siteFields, useTestDb } from './helpers.ts';
+import { exportBackup } from '../../src/data/backup.ts';
+import { mergeBackup } from '../../src/data/merge.ts';
+import { history } from '../../src/data/repo/revisions.ts';
+import { BY, dumpDb, hashDb, geometryFields, inspectionFields, installationFields, reflectorFields, seedSample, siteFields, useTestDb } from './helpers.ts';
 
 describe('removeDemoData', () => {
   const db = useTestDb();
@@ -48,5 +51,50 @@ describe('removeDemoData', () => {
     const report = await removeDemoData(db());
     expect(Object.values(report.removed).every((n) => n === 0)).toBe(true);
     expect(await dumpDb(db())).toEqual(before);
+  });
+
+  it('an update cannot make a record demo (or real): refused in words, nothing written', async () => {
+    const { site, refl } = await seedSample(db());
+    const before = await hashDb(db());
+    await expect(siteRepo.update(db(), site.id, { demo: true }, BY)).rejects.toMatchObject({
+      name: 'ValidationError',
+      message: expect.stringMatching(/demo.*set when the record is created and cannot be changed/),
+    });
+    await expect(reflectorRepo.update(db(), refl.id, { demo: true, notes: 'x' }, BY)).rejects.toMatchObject({ name: 'ValidationError' });
+    expect(await hashDb(db())).toBe(before);
+    const { site: demoSite } = await seedDemo();
+    await expect(siteRepo.update(db(), demoSite.id, { demo: false }, BY)).rejects.toMatchObject({ name: 'ValidationError' });
+    // Passing the unchanged flag along with a real edit is fine.
+    await expect(siteRepo.update(db(), site.id, { demo: false, notes: 'edited' }, BY)).resolves.toMatchObject({ notes: 'edited', demo: false });
+  });
+
+  it('a real record flagged demo by any other path is never removed: the creation revision decides', async () => {
+    const { site, inst } = await seedSample(db());
+    // As an older app or an edited file could leave it: the row says demo, its 'create' revision says real.
+    await db().sites.put({ ...(await siteRepo.get(db(), site.id))!, demo: true });
+    await db().installations.put({ ...(await installationRepo.get(db(), inst.id))!, demo: true });
+    const before = await hashDb(db());
+    const report = await removeDemoData(db());
+    expect(Object.values(report.removed).every((n) => n === 0)).toBe(true);
+    expect(await hashDb(db())).toBe(before);
+    expect((await history(db(), 'sites', site.id)).length).toBeGreaterThan(0);
+  });
+
+  it('a merge that marks a real record demo reports a conflict and keeps ours; demo removal then leaves it', async () => {
+    const { site } = await seedSample(db());
+    const doc = await exportBackup(db(), { appVersion: '0.1.0' });
+    const theirs = doc.tables.sites.find((s) => s.id === site.id)!;
+    // The other phone's file claims a later revision that turned the site into demo data.
+    theirs.demo = true;
+    theirs.rev += 1;
+    theirs.updatedAtMs += 1000;
+    doc.tables.revisions.push({ id: crypto.randomUUID(), table: 'sites', recordId: site.id, rev: theirs.rev, atMs: theirs.updatedAtMs, by: 'Bo Marsh', kind: 'update', changes: [{ field: 'demo', before: false, after: true }], snapshot: null, cascadeOf: null });
+    const report = await mergeBackup(db(), doc, BY);
+    expect(report.sites.conflicts).toEqual([{ table: 'sites', id: site.id, reason: expect.stringMatching(/demo/) }]);
+    expect((await siteRepo.get(db(), site.id))?.demo).toBe(false);
+    expect((await history(db(), 'sites', site.id)).some((r) => r.changes.some((c) => c.field === 'demo'))).toBe(false);
+    const removal = await removeDemoData(db());
+    expect(removal.removed.sites).toBe(0);
+    expect(await siteRepo.get(db(), site.id)).toBeDefined();
   });
 });

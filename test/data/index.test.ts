@@ -21,6 +21,6 @@ describe('public API', () => {
     expect(Object.keys(api.elementRepo).sort()).toEqual(['get', 'list', 'put', 'remove']);
     expect(api.BACKUP_TABLES).toContain('elements');
     expect(api.SUGGESTED_PHOTO_ROLES).toHaveLength(7);
-    expect(api.CURRENT_SCHEMA_VERSION).toBe(4);
+    expect(api.CURRENT_SCHEMA_VERSION).toBe(5);
   });
 });

@@ -1,4 +1,5 @@
 import { readFile } from 'node:fs/promises';
+import { strFromU8, unzipSync } from 'fflate';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { seriousViolations } from './a11y.ts';
@@ -42,11 +43,12 @@ async function dumpIdb(page: Page): Promise<string> {
 
 const siteCodes = async (page: Page) => (JSON.parse(await dumpIdb(page)) as { sites: { code: string; deletedAtMs: number | null }[] }).sites.filter((s) => s.deletedAtMs === null).map((s) => s.code).sort();
 
-/** Click and capture the browser download it starts: its suggested name and its text. */
-async function download(page: Page, testId: string): Promise<{ name: string; text: string }> {
+/** Click and capture the browser download it starts: its suggested name, its bytes and its text. */
+async function download(page: Page, testId: string): Promise<{ name: string; text: string; bytes: Buffer }> {
   const [d] = await Promise.all([page.waitForEvent('download'), el(page, testId).click()]);
   const path = await d.path();
-  return { name: d.suggestedFilename(), text: await readFile(path, 'utf8') };
+  const bytes = await readFile(path);
+  return { name: d.suggestedFilename(), text: bytes.toString('utf8'), bytes };
 }
 
 /** Screenshot with the element in the middle of the screen (the page scrolls inside Ionic's content). */
@@ -69,6 +71,10 @@ const SITES_CSV = [
 describe('Settings screen', () => {
   it('imports sites with a preview, backs up, refuses damaged backups, restores, merges, exports GeoJSON, and themes', async () => {
     const ctx = await phoneContext(browser, { geolocation: false });
+    // This test follows the plain-download path (no File System Access save dialog, as on phones' browsers).
+    await ctx.addInitScript(() => {
+      delete (window as { showSaveFilePicker?: unknown }).showSaveFilePicker;
+    });
     const page = await ctx.newPage();
     const errors: string[] = [];
     page.on('pageerror', (e) => errors.push(e.message));
@@ -76,7 +82,7 @@ describe('Settings screen', () => {
     await el(page, 'privacy').waitFor();
     expect(await text(page, 'privacy')).toMatch(/^Nothing leaves this phone unless you export or share it/);
     await expect.poll(() => text(page, 'last-backup')).toMatch(/No backup has been saved/);
-    expect(await text(page, 'schema-version')).toMatch(/schema version 4/);
+    expect(await text(page, 'schema-version')).toMatch(/schema version 5/);
     expect(await el(page, 'backup-reminder').count()).toBe(0); // nothing to back up yet
     await screenshot(page, 'settings-start');
     await shot(page, 'persistence', 'settings-storage');
@@ -104,13 +110,19 @@ describe('Settings screen', () => {
     expect(await text(page, 'backup-reminder')).toContain("Today's work is not backed up: download a backup");
     await shot(page, 'backup-reminder', 'settings-backup-reminder');
 
-    // Full backup as a browser download: one versioned JSON document.
-    const backup = await download(page, 'download-backup');
-    expect(backup.name).toMatch(/^glintmark-backup-\d{8}-\d{4}Z\.json$/);
-    const doc = JSON.parse(backup.text) as { format: string; formatVersion: number; app: { schemaVersion: number }; tables: Record<string, unknown[]> };
-    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 1, app: { schemaVersion: 4 } });
+    // Full backup as a browser download: a ZIP archive (manifest, records.json, photos).
+    const archive = await download(page, 'download-backup');
+    expect(archive.name).toMatch(/^glintmark-backup-\d{8}-\d{4}Z\.glintmark\.zip$/);
+    const entries = unzipSync(new Uint8Array(archive.bytes));
+    expect(Object.keys(entries).sort()).toEqual(['manifest.json', 'records.json']);
+    const doc = JSON.parse(strFromU8(entries['records.json'])) as { format: string; formatVersion: number; app: { schemaVersion: number }; tables: Record<string, unknown[]> };
+    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 2, app: { schemaVersion: 5 } });
     expect(Object.keys(doc.tables).sort()).toEqual(['conflicts', 'elements', 'geometries', 'inspections', 'installations', 'photos', 'reflectors', 'revisions', 'sites']);
     expect(doc.tables.sites).toHaveLength(2);
+    // The page cannot see the download end: "last backup" waits for the crew's word.
+    await el(page, 'backup-confirm').waitFor();
+    expect(await text(page, 'last-backup')).toMatch(/No backup has been saved/);
+    await el(page, 'backup-confirm-done').click();
     await expect.poll(() => text(page, 'backup-message')).toMatch(/^✓ Backup saved to your browser's downloads/);
     await expect.poll(() => text(page, 'last-backup')).toMatch(/^✓ Last backup saved .* \(less than a day ago\)\.$/);
     await expect.poll(() => el(page, 'backup-reminder').count()).toBe(0); // backed up today: the banner goes
@@ -118,6 +130,12 @@ describe('Settings screen', () => {
 
     // Damaged backups: the data layer's plain message, and the database exactly as it was.
     const before = await dumpIdb(page);
+    await el(page, 'restore-file').setInputFiles({ name: 'cut.glintmark.zip', mimeType: 'application/zip', buffer: archive.bytes.subarray(0, Math.floor(archive.bytes.length / 2)) });
+    await expect.poll(() => text(page, 'restore-error')).toMatch(/^The backup archive is incomplete \(its table of contents at the end of the file is missing\)/);
+    expect(await el(page, 'restore-confirm').count()).toBe(0);
+    expect(await dumpIdb(page)).toBe(before);
+    // An old JSON backup (format 1) of the same records: cut short, it is refused as before.
+    const backup = { name: 'glintmark-backup-old.json', text: JSON.stringify({ ...doc, formatVersion: 1 }) };
     await el(page, 'restore-file').setInputFiles(file('cut.json', 'application/json', backup.text.slice(0, Math.floor(backup.text.length / 2))));
     await expect.poll(() => text(page, 'restore-error')).toMatch(/^The backup file is incomplete \(it ends in the middle of the data\)/);
     expect(await el(page, 'restore-confirm').count()).toBe(0);
@@ -129,7 +147,7 @@ describe('Settings screen', () => {
     await shot(page, 'restore-error', 'settings-restore-not-json');
 
     // The good backup: described first, then replacing needs a second, explicit confirmation with the count.
-    await el(page, 'restore-file').setInputFiles(file(backup.name, 'application/json', backup.text));
+    await el(page, 'restore-file').setInputFiles({ name: archive.name, mimeType: 'application/zip', buffer: archive.bytes });
     await expect.poll(() => text(page, 'restore-confirm')).toMatch(/It holds 2 sites, 2 history entries\./);
     await el(page, 'restore-go').click();
     await expect.poll(() => text(page, 'restore-replace-warning')).toMatch(/already holds \d+ records/);
@@ -139,7 +157,10 @@ describe('Settings screen', () => {
     await expect.poll(() => text(page, 'restore-message')).toBe('Restored 2 sites, 2 history entries.');
     expect(await siteCodes(page)).toEqual(['HR-07', 'MF-01']);
 
-    // Merging the same backup changes nothing and says so.
+    // Merging the same backup (the archive, then the old JSON form) changes nothing and says so.
+    await el(page, 'merge-file').setInputFiles({ name: archive.name, mimeType: 'application/zip', buffer: archive.bytes });
+    await el(page, 'merge-go').click();
+    await expect.poll(() => text(page, 'merge-summary')).toBe('✓ Merged: 0 added, 0 updated, 4 unchanged, 0 newer on this phone, no conflicts.');
     await el(page, 'merge-file').setInputFiles(file(backup.name, 'application/json', backup.text));
     await el(page, 'merge-go').click();
     await expect.poll(() => text(page, 'merge-summary')).toBe('✓ Merged: 0 added, 0 updated, 4 unchanged, 0 newer on this phone, no conflicts.');

@@ -18,3 +18,14 @@ export function noise(seed: number): () => number {
   const r = mulberry32(seed);
   return () => r() * 2 - 1;
 }
+
+/** `n` pseudo-random bytes from the seeded generator (four bytes per draw), e.g. photo stand-ins that do not compress. */
+export function randomBytes(n: number, seed: number): Uint8Array<ArrayBuffer> {
+  const r = mulberry32(seed);
+  const out = new Uint8Array(n);
+  const whole = n - (n % 4);
+  const view = new DataView(out.buffer);
+  for (let i = 0; i < whole; i += 4) view.setUint32(i, Math.floor(r() * 4294967296));
+  for (let i = whole; i < n; i++) out[i] = Math.floor(r() * 256);
+  return out;
+}

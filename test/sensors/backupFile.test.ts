@@ -75,3 +75,51 @@ describe('saveBackupFile', () => {
     expect(calls).toEqual([]);
   });
 });
+
+describe('saveArchiveFile', () => {
+  const ZIP = 'glintmark-backup-20270702-1200Z.glintmark.zip';
+  // 7 MB of bytes 0..250 repeating: three native pieces (3 MiB, 3 MiB, the rest).
+  const bytes = new Uint8Array(7_000_000).map((_, i) => i % 251);
+  const produce = async () => new Blob([bytes], { type: 'application/zip' });
+
+  it('on a phone writes the archive to Documents in base64 pieces that join to the exact bytes', async () => {
+    const calls: unknown[][] = [];
+    const appended: string[] = [];
+    const s2 = createFileSaver({
+      native: true,
+      writeFile: async (w) => {
+        calls.push(['writeFile', w.path, w.encoding]);
+        appended.push(w.data);
+        return { uri: '' };
+      },
+      appendFile: async (a) => {
+        calls.push(['appendFile', a.path]);
+        appended.push(a.data);
+      },
+      checkPermissions: async () => ({ publicStorage: 'granted' }),
+      requestPermissions: async () => ({ publicStorage: 'granted' }),
+      download: () => undefined,
+    });
+    const r = await s2.saveArchiveFile(ZIP, produce);
+    expect(r).toEqual({ ok: true, value: { where: `Documents/${ZIP}`, written: true } });
+    expect(calls).toEqual([['writeFile', ZIP, undefined], ['appendFile', ZIP], ['appendFile', ZIP]]);
+    const joined = Buffer.concat(appended.map((a) => Buffer.from(a, 'base64')));
+    expect(Buffer.compare(joined, Buffer.from(bytes))).toBe(0);
+  });
+
+  it('in a browser with a save dialog: written once the write resolves; a cancelled dialog saves nothing', async () => {
+    const got: number[] = [];
+    const base = { native: false, writeFile: async () => ({ uri: '' }), checkPermissions: async () => ({ publicStorage: 'granted' }), requestPermissions: async () => ({ publicStorage: 'granted' }), download: () => undefined };
+    const withDialog = createFileSaver({ ...base, pickSaveFile: async () => ({ write: async (b: Blob) => void got.push(b.size) }) });
+    expect(await withDialog.saveArchiveFile(ZIP, produce)).toEqual({ ok: true, value: { where: `the file you chose (${ZIP})`, written: true } });
+    expect(got).toEqual([7_000_000]);
+    const cancelled = createFileSaver({ ...base, pickSaveFile: async () => null });
+    expect(await cancelled.saveArchiveFile(ZIP, produce)).toEqual({ ok: false, error: { message: 'No file was chosen, so the backup was not saved.' } });
+  });
+
+  it('in a browser without a save dialog: a download, not yet known to be written', async () => {
+    const { saver, calls } = stub({ native: false });
+    expect(await saver.saveArchiveFile(ZIP, produce)).toEqual({ ok: true, value: { where: `your browser's downloads (${ZIP})`, written: false } });
+    expect(calls).toEqual([['download', ZIP, 'application/zip', 7_000_000]]);
+  });
+});

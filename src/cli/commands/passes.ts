@@ -2,7 +2,6 @@
  * `glintmark passes`: zero-Doppler overpasses of a site from a TLE file, one row per pass or per track.
  * All numbers come from src/core/orbit; this file reads options, the TLE file, and prints.
  */
-import { readFileSync } from 'node:fs';
 import { LOOK_SIDES } from '../../core/geometry/pointing.ts';
 import { findPasses, DEFAULT_INCIDENCE_MAX_DEG, DEFAULT_INCIDENCE_MIN_DEG, type Pass } from '../../core/orbit/passes.ts';
 import { parseIsoUtcMs } from '../../core/time.ts';
@@ -11,6 +10,7 @@ import { groupTracks, type Track } from '../../core/orbit/tracks.ts';
 import { requireIncidenceDeg, requireInRange, requireLatDeg, requireLonDeg, requireOneOf } from '../../core/validate.ts';
 import { UsageError, type Args } from '../args.ts';
 import type { Command } from '../command.ts';
+import { readInputText } from '../input.ts';
 import { fmt, table, type Out } from '../output.ts';
 
 const USAGE =
@@ -22,16 +22,6 @@ const USAGE =
   `  --incidence-min/--incidence-max  incidence range used by the radar, degrees (default ${DEFAULT_INCIDENCE_MIN_DEG}–${DEFAULT_INCIDENCE_MAX_DEG})\n` +
   `  --look       radar look side (default right)\n` +
   `  --tracks     group passes with the same geometry into tracks`;
-
-function readTleFile(path: string): string {
-  try {
-    return readFileSync(path, 'utf8');
-  } catch (e) {
-    const code = (e as { code?: string }).code;
-    const why = code === 'ENOENT' ? 'no such file' : code === 'EISDIR' ? 'it is a folder' : (code ?? 'unreadable');
-    throw new UsageError(`cannot read --tle file "${path}": ${why}`);
-  }
-}
 
 const passRow = (p: Pass): string[] => [
   p.timeUtc.replace(/\.\d+Z$/, 'Z'),
@@ -56,7 +46,7 @@ const trackRow = (t: Track): string[] => [
   t.nextTimeUtc.replace(/\.\d+Z$/, 'Z'),
 ];
 
-function run(args: Args, out: Out): number {
+async function run(args: Args, out: Out): Promise<number> {
   const tlePath = args.string('tle');
   const latDeg = requireLatDeg('--lat', args.number('lat'));
   const lonDeg = requireLonDeg('--lon', args.number('lon'));
@@ -74,7 +64,7 @@ function run(args: Args, out: Out): number {
   }
   const startMs = parseIsoUtcMs(startText, '--start');
 
-  const parsed = parseTle(readTleFile(tlePath));
+  const parsed = parseTle(await readInputText('--tle', tlePath, out));
   if (parsed.sets.length === 0) {
     const first = parsed.errors[0];
     const more = parsed.errors.length > 1 ? ` (and ${parsed.errors.length - 1} more problem${parsed.errors.length > 2 ? 's' : ''})` : '';

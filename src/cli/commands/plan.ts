@@ -1,4 +1,4 @@
-import { readFileSync, writeFileSync } from 'node:fs';
+import { writeFileSync } from 'node:fs';
 import { aimForPass } from '../../core/geometry/pointing.ts';
 import { compromiseOrientation } from '../../core/reflector/compromise.ts';
 import { misalignment } from '../../core/reflector/misalignment.ts';
@@ -8,6 +8,7 @@ import { toDb } from '../../core/units.ts';
 import { requirePositive } from '../../core/validate.ts';
 import { UsageError } from '../args.ts';
 import type { Command } from '../command.ts';
+import { assertOutIsNotInput, readInputText } from '../input.ts';
 import { jsonNumber, readGeometries, readShape, readWavelengthM } from '../common.ts';
 import { parseSitesCsv } from '../sitesCsv.ts';
 import { reflectorWarnings } from './rcs.ts';
@@ -25,7 +26,7 @@ export const command: Command = {
     'Sites CSV header: code,latitude,longitude,height_m. Azimuths are true, clockwise from north, toward the satellite.\n' +
     '--one-reflector aims one reflector per site at the best compromise for all geometries; otherwise each geometry gets its own aim.',
   switches: ['one-reflector'],
-  run(args, out) {
+  async run(args, out) {
     const json = args.flag('json');
     const oneReflector = args.flag('one-reflector');
     const sitesPath = args.string('sites');
@@ -36,12 +37,8 @@ export const command: Command = {
     const outPath = args.optString('out');
     args.assertNoUnknown();
 
-    let text: string;
-    try {
-      text = readFileSync(sitesPath, 'utf8');
-    } catch (e) {
-      throw new UsageError(`cannot read --sites ${sitesPath}: ${(e as NodeJS.ErrnoException).code ?? 'error'}`);
-    }
+    if (outPath) assertOutIsNotInput(outPath, [{ flag: '--sites', path: sitesPath }]);
+    const text = await readInputText('--sites', sitesPath, out);
     const sites = parseSitesCsv(sitesPath, text);
     const reflector = { shape, edgeM, wavelengthM };
     const peakDbsm = toDb(peakRcsM2(reflector));

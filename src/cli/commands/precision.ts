@@ -21,6 +21,9 @@ export const command: Command = {
       scrDb: scr,
       phaseStdRad: phase,
       losStdMm: losPrecisionMm(phase, wavelengthM),
+      /** Std of the difference of two images' LOS measurements: √2 × losStdMm (independent, equal noise). */
+      losStdDiffMm: Math.SQRT2 * losPrecisionMm(phase, wavelengthM),
+      losStdOf: 'one image (losStdMm); the difference of two images, as in a displacement between two dates (losStdDiffMm = √2 × losStdMm)',
       note: 'lower bound from clutter alone; atmosphere, orbit errors and monument motion add to it',
       ...(scr < 10 ? { warning: 'SCR below 10 dB: the 1/sqrt(2 SCR) phase approximation is optimistic here' } : {}),
     };
@@ -30,7 +33,8 @@ export const command: Command = {
         keyValueTable([
           ['signal-to-clutter ratio', `${fmt(result.scrDb, 2)} dB`],
           ['phase std', `${fmt(result.phaseStdRad, 4)} rad`],
-          ['LOS precision', `${fmt(result.losStdMm, 3)} mm (lower bound)`],
+          ['LOS precision, one image', `${fmt(result.losStdMm, 3)} mm (lower bound)`],
+          ['LOS precision, difference of two images', `${fmt(result.losStdDiffMm, 3)} mm (√2 larger; a displacement between two dates)`],
           ...(result.warning ? [['warning', result.warning] as [string, string]] : []),
         ]),
       );

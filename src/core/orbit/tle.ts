@@ -5,7 +5,8 @@
  * the "0 NAME" form of three-line element files is accepted too), CRLF or LF line ends, trailing spaces,
  * blank lines anywhere. Each set is checked (tleFields.ts): line length 69, line numbers, matching catalogue
  * numbers, both checksums, and the numeric fields. A bad set is reported with its line and column and skipped;
- * the good sets are kept. Format: Hoots & Roehrich, Spacetrack Report No. 3 (1980); Vallado et al. 2006
+ * the good sets are kept. A control character inside a line (a TAB, often from a spreadsheet) is such a problem.
+ * Format: Hoots & Roehrich, Spacetrack Report No. 3 (1980); Vallado et al. 2006
  * (AIAA 2006-6753).
  */
 import { checkTlePair, TLE_LINE_LENGTH, type TleError } from './tleFields.ts';
@@ -71,6 +72,19 @@ export function parseTle(text: string): TleParseResult {
         i += 1;
         continue;
       }
+      // A control character (a TAB from a spreadsheet or word processor) is refused here, with its place, so the
+      // set is reported and skipped instead of reaching the store, which would refuse the whole paste.
+      const control = [
+        name ? controlProblem(name, 'the name line') : null,
+        controlProblem(l, 'line 1 of the element set'),
+        controlProblem(next, 'line 2 of the element set'),
+      ].filter((e): e is TleError => e !== null);
+      if (control.length) {
+        errors.push(...control);
+        name = null;
+        i += 2;
+        continue;
+      }
       const checked = checkTlePair(l.text, l.lineNumber, next.text, next.lineNumber);
       if (checked.ok) {
         sets.push({
@@ -100,6 +114,18 @@ export function parseTle(text: string): TleParseResult {
   if (name) fail(name, 1, `"${shorten(name.text)}" is not followed by an element set (expected a line starting with "1 ")`);
   errors.sort((a, b) => a.lineNumber - b.lineNumber);
   return { sets, errors };
+}
+
+const CONTROL = /[\u0000-\u001F\u007F]/;
+const CONTROL_NAMES: Record<string, string> = { '\t': 'a tab', '\u0000': 'a NUL character', '\u007F': 'a DEL character' };
+
+/** A TleError for the first control character in a line (trailing white space is already trimmed), or null. */
+function controlProblem(l: NumberedLine, what: string): TleError | null {
+  const m = CONTROL.exec(l.text);
+  if (!m) return null;
+  const c = m[0];
+  const which = CONTROL_NAMES[c] ?? `a control character (code ${c.charCodeAt(0)})`;
+  return { lineNumber: l.lineNumber, column: m.index + 1, message: `${what} has ${which} at column ${m.index + 1}; element lines use spaces only — copy the set again from its source as plain text` };
 }
 
 /** Name from a name line: "0 NAME" → "NAME"; otherwise the trimmed line. */

@@ -41,7 +41,7 @@ export interface Compromise {
   message: string;
 }
 
-const DEFAULT_MAX_LOSS_DB = 3;
+export const DEFAULT_MAX_LOSS_DB = 3;
 const OUTSIDE_PENALTY_DB = 1000;
 const COARSE_STEP_DEG = 8;
 const COARSE_OPTS = { xTol: 1e-2, fTol: 1e-6, maxEvaluations: 200 };

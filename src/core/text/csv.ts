@@ -88,17 +88,41 @@ export function parseCsv(text: string): CsvRecord[] {
 
 export type CsvValue = string | number | boolean | null | undefined;
 
+/**
+ * Formula cells. A spreadsheet runs a cell that begins with =, +, -, @ (and, after its own trimming, TAB or CR)
+ * as a formula; prefixing a single quote makes it text (OWASP, "CSV Injection", owasp.org/www-community/attacks/
+ * CSV_Injection). A text cell already beginning with quotes before such a character gets one more quote, so
+ * unprotectCsvCell reads every exported text back exactly. Plain numerals ("-1.25", "+3") are left alone: they
+ * are numbers in a spreadsheet, not formulas.
+ */
+const FORMULA_START = /^'*[=+\-@\t\r]/;
+const PROTECTED_START = /^'+[=+\-@\t\r]/;
+const NUMERAL = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/** The text as written to a spreadsheet-safe CSV cell (before RFC 4180 quoting). */
+export const protectCsvCell = (s: string): string => (FORMULA_START.test(s) && !NUMERAL.test(s) ? `'${s}` : s);
+
+/** The reverse of protectCsvCell, for importers: one leading quote before =, +, -, @, TAB or CR is dropped. */
+export const unprotectCsvCell = (s: string): string => (PROTECTED_START.test(s) ? s.slice(1) : s);
+
+export interface CsvWriteOptions {
+  /** Prefix formula-like text cells with a quote (default true; see protectCsvCell). Numbers are never changed. */
+  protectFormulas?: boolean;
+}
+
 /** Quote a field only when RFC 4180 requires it; numbers in JavaScript's shortest round-trip form, null as empty. */
-export function csvField(v: CsvValue): string {
+export function csvField(v: CsvValue, opts: CsvWriteOptions = {}): string {
   if (v === null || v === undefined) return '';
-  const s = String(v);
+  const raw = String(v);
+  const s = typeof v === 'string' && opts.protectFormulas !== false ? protectCsvCell(raw) : raw;
   return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
-/** Format rows as RFC 4180 CSV: CRLF line breaks, trailing CRLF. */
-export function formatCsv(rows: readonly (readonly CsvValue[])[]): string {
-  return rows.map((r) => r.map(csvField).join(',')).join('\r\n') + '\r\n';
+/** Format rows as RFC 4180 CSV: CRLF line breaks, trailing CRLF; formula-like text cells protected by default. */
+export function formatCsv(rows: readonly (readonly CsvValue[])[], opts: CsvWriteOptions = {}): string {
+  return rows.map((r) => r.map((v) => csvField(v, opts)).join(',')).join('\r\n') + '\r\n';
 }
 
 /** A header row plus data rows, as RFC 4180 CSV. */
-export const toCsv = (header: readonly string[], rows: readonly (readonly CsvValue[])[]): string => formatCsv([header, ...rows]);
+export const toCsv = (header: readonly string[], rows: readonly (readonly CsvValue[])[], opts: CsvWriteOptions = {}): string =>
+  formatCsv([header, ...rows], opts);

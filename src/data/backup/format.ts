@@ -18,6 +18,7 @@
  * they are (see backup.ts); an empty list means "none" and restore replaces them with none.
  */
 import * as v from 'valibot';
+import { SHA256_HEX } from '../hash.ts';
 import { lineText, oneOf, timeMs, uuid } from '../schema/fields.ts';
 import { recordMetaSchema } from '../schema/records.ts';
 import {
@@ -36,10 +37,16 @@ import {
 } from '../types.ts';
 
 export const BACKUP_FORMAT = 'glintmark-backup';
+/** A backup saved as one JSON file, photos inline as base64. */
 export const BACKUP_FORMAT_VERSION = 1;
+/**
+ * The same document as `records.json` inside a backup archive (archive.ts): photo rows carry `file` (the archive
+ * entry with their bytes, `photos/<sha256>.<ext>`) and a required `sha256` instead of `dataBase64`.
+ */
+export const ARCHIVE_RECORDS_FORMAT_VERSION = 2;
 
 /** A photo row in a backup: the stored row with the blob replaced by its bytes in base64. */
-export type BackupPhoto = Omit<PhotoRecord, 'blob'> & { dataBase64: string };
+export type BackupPhoto = Omit<PhotoRecord, 'blob' | 'sha256'> & { sha256?: string | null; dataBase64: string };
 /** A conflict row in a backup; a photo version inside `other` carries dataBase64 instead of blob. */
 export type BackupConflict = ConflictRecord;
 
@@ -58,7 +65,7 @@ export interface BackupTables {
 
 export interface BackupDocument {
   format: typeof BACKUP_FORMAT;
-  formatVersion: typeof BACKUP_FORMAT_VERSION;
+  formatVersion: typeof BACKUP_FORMAT_VERSION | typeof ARCHIVE_RECORDS_FORMAT_VERSION;
   exportedAtUtc: string;
   app: { name: string; version: string; schemaVersion: number };
   tables: BackupTables;
@@ -74,7 +81,7 @@ const tableList = (name: string) => v.array(v.unknown(), `the backup's ${name} l
 /** The envelope; rows are checked one by one afterwards so every message can name its row. */
 export const envelopeSchema = v.object({
   format: v.literal(BACKUP_FORMAT),
-  formatVersion: v.literal(BACKUP_FORMAT_VERSION),
+  formatVersion: v.picklist([BACKUP_FORMAT_VERSION, ARCHIVE_RECORDS_FORMAT_VERSION]),
   exportedAtUtc: v.pipe(v.string('exportedAtUtc must be text'), v.isoTimestamp('exportedAtUtc must be an ISO 8601 time')),
   app: v.object({ name: v.string('app.name must be text'), version: v.string('app.version must be text'), schemaVersion: v.number() }),
   tables: v.object(
@@ -92,8 +99,18 @@ export const photoRowSchema = v.strictObject({
   role: lineText('photo role', { min: 1, max: 32 }),
   mime: v.pipe(v.string('mime must be text'), v.regex(/^image\/[a-z0-9.+-]+$/, 'mime must be an image type such as image/jpeg')),
   bytes: v.pipe(v.number('bytes must be a number'), v.integer('bytes must be a whole number'), v.minValue(1, 'bytes must be 1 or more')),
+  // Schema 5. Optional: backups written before it have none (the restore computes it from the bytes); when
+  // present it must match the bytes.
+  sha256: v.optional(v.nullable(v.pipe(v.string('sha256 must be text'), v.regex(SHA256_HEX, 'sha256 must be 64 lowercase hexadecimal digits')))),
   takenAtMs: timeMs('photo time'),
   dataBase64: v.string('the photo data (dataBase64) must be text'),
+});
+
+/** A photo row in an archive's records.json: the bytes are the archive entry `file`, named by their SHA-256. */
+export const archivePhotoRowSchema = v.strictObject({
+  ...v.omit(photoRowSchema, ['dataBase64', 'sha256']).entries,
+  sha256: v.pipe(v.string('sha256 must be text'), v.regex(SHA256_HEX, 'sha256 must be 64 lowercase hexadecimal digits')),
+  file: v.pipe(v.string('file must be text'), v.regex(/^photos\/[0-9a-f]{64}\.[a-z0-9]{1,8}$/, 'file must name a photo entry such as photos/<sha256>.jpg')),
 });
 
 const changeSchema = v.strictObject({ field: v.string('change field must be text'), before: v.unknown(), after: v.unknown() });

@@ -8,9 +8,10 @@ import { BackupError, formatSize, type Issue } from '../errors.ts';
 import { DEFAULT_MAX_PHOTO_BYTES } from '../repo/photos.ts';
 import { toIssues } from '../schema/fields.ts';
 import { elementRowIssues } from '../schema/elements.ts';
+import { copyPlain, forbiddenKey, forbiddenKeyMessage } from '../schema/plain.ts';
 import { rowIssues } from '../schema/validate.ts';
 import { ENTITY_TABLES } from '../types.ts';
-import { BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, conflictRowSchema, envelopeSchema, photoRowSchema, revisionRowSchema, type BackupDocument, type BackupTable, type BackupTables } from './format.ts';
+import { ARCHIVE_RECORDS_FORMAT_VERSION, BACKUP_FORMAT, BACKUP_FORMAT_VERSION, BACKUP_TABLES, archivePhotoRowSchema, conflictRowSchema, envelopeSchema, photoRowSchema, revisionRowSchema, type BackupDocument, type BackupTable, type BackupTables } from './format.ts';
 
 export interface BackupCheckOptions {
   /** Largest photo accepted, bytes (default DEFAULT_MAX_PHOTO_BYTES). */
@@ -53,12 +54,21 @@ function parseText(text: string): unknown {
   }
 }
 
-function checkEnvelope(data: unknown): BackupDocument {
+/** Where a document's photo bytes are: inline base64 (a JSON backup file) or entries of the archive (records.json). */
+export type BackupLayout = 'json' | 'archive';
+
+function checkEnvelope(data: unknown, layout: BackupLayout): BackupDocument {
   const o = (typeof data === 'object' && data !== null && !Array.isArray(data) ? data : {}) as Record<string, unknown>;
   if (o.format !== BACKUP_FORMAT) {
     throw new BackupError('wrong-format', `This file is not a Glintmark backup (its format is ${JSON.stringify(o.format ?? null)}, expected "${BACKUP_FORMAT}"). Nothing was restored.`);
   }
-  if (o.formatVersion !== BACKUP_FORMAT_VERSION) {
+  if (layout === 'json' && o.formatVersion === ARCHIVE_RECORDS_FORMAT_VERSION) {
+    throw new BackupError('wrong-format', 'This is the records file from inside a backup archive, without its photos. Restore the whole archive (the .glintmark.zip file) instead. Nothing was restored.');
+  }
+  if (layout === 'archive' && o.formatVersion !== ARCHIVE_RECORDS_FORMAT_VERSION) {
+    throw new BackupError('wrong-version', `The records inside this backup archive have format version ${JSON.stringify(o.formatVersion ?? null)}, not ${ARCHIVE_RECORDS_FORMAT_VERSION}. Nothing was restored.`);
+  }
+  if (layout === 'json' && o.formatVersion !== BACKUP_FORMAT_VERSION) {
     const newer = typeof o.formatVersion === 'number' && o.formatVersion > BACKUP_FORMAT_VERSION;
     throw new BackupError(
       'wrong-version',
@@ -72,22 +82,59 @@ function checkEnvelope(data: unknown): BackupDocument {
   return data as BackupDocument;
 }
 
+/**
+ * The parsed document as plain data (schema/plain.ts): no prototype keys, bounded nesting and text, every row
+ * copied into fresh objects. Rows are named as in every other message ("sites[3] (MF-05).notes").
+ */
+function plainDocument(data: unknown): unknown {
+  if (typeof data !== 'object' || data === null || Array.isArray(data)) return data;
+  // Photo bytes in base64 are bounded by the photo size check instead (bytes must match the data, ≤ maxPhotoBytes).
+  const limits = { longText: (k: string) => (k === 'dataBase64' ? Infinity : undefined) };
+  const issue = (i: Issue) => fail('invalid-record', 'its data is damaged or was altered', [i]);
+  const { tables, ...envelope } = data as Record<string, unknown>;
+  const top = copyPlain(envelope, '');
+  if (!top.ok) throw issue(top.issue);
+  const out = top.value as Record<string, unknown>;
+  if (typeof tables !== 'object' || tables === null || Array.isArray(tables)) {
+    if (tables !== undefined) out.tables = tables;
+    return out;
+  }
+  const bad = forbiddenKey(tables);
+  if (bad !== null) throw issue({ path: 'tables', message: forbiddenKeyMessage(bad) });
+  const copied: Record<string, unknown> = {};
+  for (const [name, list] of Object.entries(tables)) {
+    if (!Array.isArray(list)) {
+      const r = copyPlain(list, `tables.${name}`);
+      if (!r.ok) throw issue(r.issue);
+      copied[name] = r.value;
+      continue;
+    }
+    copied[name] = list.map((row: unknown, i) => {
+      const r = copyPlain(row, rowName(name, i, row), limits);
+      if (!r.ok) throw issue(r.issue);
+      return r.value;
+    });
+  }
+  out.tables = copied;
+  return out;
+}
+
 function fail(kind: BackupError['kind'], what: string, issues: Issue[]): BackupError {
   const shown = issues.slice(0, 5).map((i) => `${i.path}: ${i.message}`).join('; ');
   const more = issues.length > 5 ? ` (and ${issues.length - 5} more)` : '';
   return new BackupError(kind, `The backup was not restored: ${what}. ${shown}${more}`, issues);
 }
 
-const rowName = (table: string, i: number, row: unknown): string => {
-  const r = (row ?? {}) as Record<string, unknown>;
+function rowName(table: string, i: number, row: unknown): string {
+  const r = (typeof row === 'object' && row !== null ? row : {}) as Record<string, unknown>;
   const hint = typeof r.code === 'string' ? r.code : typeof r.label === 'string' ? r.label : typeof r.catalogNumber === 'string' ? r.catalogNumber : '';
   return `${table}[${i}]${hint ? ` (${hint})` : ''}`;
-};
+}
 
-function recordIssues(tables: BackupTables): Issue[] {
+function recordIssues(tables: BackupTables, layout: BackupLayout): Issue[] {
   const issues: Issue[] = [];
   for (const t of ENTITY_TABLES) tables[t].forEach((row, i) => issues.push(...rowIssues(t, row, rowName(t, i, row))));
-  const simple: [BackupTable, v.GenericSchema][] = [['photos', photoRowSchema], ['revisions', revisionRowSchema], ['conflicts', conflictRowSchema]];
+  const simple: [BackupTable, v.GenericSchema][] = [['photos', layout === 'json' ? photoRowSchema : archivePhotoRowSchema], ['revisions', revisionRowSchema], ['conflicts', conflictRowSchema]];
   for (const [t, schema] of simple) {
     (tables[t] as unknown[]).forEach((row, i) => {
       const r = v.safeParse(schema, row);
@@ -95,7 +142,8 @@ function recordIssues(tables: BackupTables): Issue[] {
     });
   }
   tables.elements.forEach((row, i) => issues.push(...elementRowIssues(row, rowName('elements', i, row))));
-  tables.photos.forEach((p, i) => {
+  if (layout === 'json') tables.photos.forEach((p, i) => {
+    if (!v.is(photoRowSchema, p)) return; // already reported
     const n = base64DecodedLength(p.dataBase64);
     if (n < 0) issues.push({ path: `photos[${i}].dataBase64`, message: 'is not valid base64' });
     else if (n !== p.bytes) issues.push({ path: `photos[${i}].bytes`, message: `says ${p.bytes} bytes but the data holds ${n}` });
@@ -161,6 +209,74 @@ export function referenceIssues(tables: BackupTables, has: (table: BackupTable, 
   return issues;
 }
 
+/** Looks a row up by table and id: in the document first, then (for merge) on this device. */
+export type RowLookup = (table: BackupTable, id: string) => Record<string, unknown> | undefined;
+
+/** The document's own rows, by table and id. */
+export function documentLookup(tables: BackupTables): RowLookup {
+  const byId = new Map(BACKUP_TABLES.map((n) => [n, new Map((tables[n] as unknown as { id: string }[]).map((r) => [r.id, r as unknown as Record<string, unknown>]))]));
+  return (table, id) => byId.get(table)?.get(id);
+}
+
+/**
+ * The repositories' link rules (repo/refs.ts), applied to every live row of a document: its site and reflector are
+ * live, a child sits on its reflector's site, the geometries an installation lists are on its site, every listed
+ * photo is a live photo of that record, and every live photo is listed by its owner. A reference that resolves to
+ * nothing is left to referenceIssues. `find` resolves the document first, then (merge) the device.
+ */
+export function linkIssues(tables: BackupTables, find: RowLookup): Issue[] {
+  const issues: Issue[] = [];
+  const live = (r: { deletedAtMs: number | null }) => r.deletedAtMs === null;
+  const site = (path: string, id: string, what: string) => {
+    const s = find('sites', id);
+    if (s && s.deletedAtMs !== null) issues.push({ path, message: `its site ${String(s.code)} is deleted, but this ${what} is not (restore the site or delete the ${what} first)` });
+  };
+  const reflectorOn = (path: string, id: string, siteId: string, what: string) => {
+    const r = find('reflectors', id);
+    if (!r) return;
+    if (r.deletedAtMs !== null) issues.push({ path, message: `its reflector ${String(r.label)} is deleted, but this ${what} is not` });
+    else if (r.siteId !== siteId) issues.push({ path, message: `its reflector ${String(r.label)} belongs to another site than this ${what}` });
+  };
+  tables.reflectors.forEach((r, i) => {
+    if (live(r)) site(`${rowName('reflectors', i, r)}.siteId`, r.siteId, 'reflector');
+  });
+  tables.geometries.forEach((g, i) => {
+    if (!live(g)) return;
+    site(`geometries[${i}].siteId`, g.siteId, 'planned geometry');
+    if (g.reflectorId !== null) reflectorOn(`geometries[${i}].reflectorId`, g.reflectorId, g.siteId, 'planned geometry');
+  });
+  const noun = { installations: 'installation', inspections: 'inspection' } as const;
+  for (const t of ['installations', 'inspections'] as const) {
+    tables[t].forEach((x, i) => {
+      if (!live(x)) return;
+      site(`${t}[${i}].siteId`, x.siteId, noun[t]);
+      reflectorOn(`${t}[${i}].reflectorId`, x.reflectorId, x.siteId, noun[t]);
+      x.photoIds.forEach((id, k) => {
+        const p = find('photos', id);
+        if (p && (p.deletedAtMs !== null || p.ownerTable !== t || p.ownerId !== x.id)) {
+          issues.push({ path: `${t}[${i}].photoIds[${k}]`, message: `photo ${id} is not a live photo of this record` });
+        }
+      });
+    });
+  }
+  tables.installations.forEach((x, i) => {
+    if (!live(x)) return;
+    x.geometryIds.forEach((id, k) => {
+      const g = find('geometries', id);
+      if (g && g.siteId !== x.siteId) issues.push({ path: `installations[${i}].geometryIds[${k}]`, message: `planned geometry ${id} belongs to another site than this installation` });
+    });
+  });
+  tables.photos.forEach((p, i) => {
+    if (!live(p)) return;
+    const owner = find(p.ownerTable, p.ownerId);
+    const ids = owner?.photoIds;
+    if (owner && !(Array.isArray(ids) && ids.includes(p.id))) {
+      issues.push({ path: `photos[${i}].ownerId`, message: `its ${noun[p.ownerTable]} ${p.ownerId} does not list this photo` });
+    }
+  });
+  return issues;
+}
+
 /** A checked document, and whether the file carried the `elements` list (backups before schema 4 do not). */
 export interface CheckedBackup {
   doc: BackupDocument;
@@ -172,21 +288,24 @@ export interface CheckedBackup {
  * not-json, truncated, wrong-format, wrong-version, invalid-record, duplicate-id, photo-too-large, dangling-reference.
  * The returned document always has every table list (a missing `elements` list reads as []); the input is not changed.
  */
-export function checkBackup(input: unknown, opts: BackupCheckOptions = {}): CheckedBackup {
-  const raw = checkEnvelope(typeof input === 'string' ? parseText(input) : input);
+export function checkBackup(input: unknown, opts: BackupCheckOptions = {}, layout: BackupLayout = 'json'): CheckedBackup {
+  const maxPhotoBytes = opts.maxPhotoBytes ?? DEFAULT_MAX_PHOTO_BYTES;
+  const raw = checkEnvelope(plainDocument(typeof input === 'string' ? parseText(input) : input), layout);
   const hasElements = Array.isArray(raw.tables.elements);
   const doc: BackupDocument = hasElements ? raw : { ...raw, tables: { ...raw.tables, elements: [] } };
   const t = doc.tables;
-  const rec = recordIssues(t);
+  const rec = recordIssues(t, layout);
   if (rec.length) throw fail('invalid-record', `${rec.length} problem(s) in its records`, rec);
   const dup = duplicateIssues(t);
   if (dup.length) throw fail('duplicate-id', 'some records appear twice', dup);
-  const big = photoSizeIssues(t, opts.maxPhotoBytes ?? DEFAULT_MAX_PHOTO_BYTES);
+  const big = photoSizeIssues(t, maxPhotoBytes);
   if (big.length) throw fail('photo-too-large', 'some photos are too large', big);
   if (opts.checkReferences !== false) {
     const ids = new Map(BACKUP_TABLES.map((n) => [n, new Set((t[n] as { id: string }[]).map((r) => r.id))]));
     const refs = referenceIssues(t, (table, id) => ids.get(table)?.has(id) ?? false);
     if (refs.length) throw fail('dangling-reference', 'some records point to records that are missing', refs);
+    const links = linkIssues(t, documentLookup(t));
+    if (links.length) throw fail('dangling-reference', 'some records are linked in a way this app never writes', links);
   }
   return { doc, hasElements };
 }

@@ -99,3 +99,45 @@ export async function exportSitesGeoJson(db: GlintmarkDb, nowMs = Date.now()): P
   );
   return sitesToGeoJson(sites, installations, new Map(reflectors.map((r) => [r.id, r])), nowMs);
 }
+
+/** Names of OGC CRS84 (WGS84 longitude, latitude; CRS84h adds ellipsoidal height): what RFC 7946 §4 coordinates are. */
+const CRS84 = /^(?:urn:ogc:def:crs:OGC:(?:1\.3)?:CRS84h?|https?:\/\/www\.opengis\.net\/def\/crs\/OGC\/(?:1\.3|0)\/CRS84h?)$/i;
+const EPSG_4326 = /(?:^|[:/])(?:EPSG)(?::{1,2}|\/0\/|\/)4326$/i;
+
+/** The problem with one `crs` member (GeoJSON 2008 draft), or null when it names WGS84 longitude/latitude. */
+function crsProblem(crs: unknown, where: string): string | null {
+  if (crs === undefined) return null;
+  const c = (typeof crs === 'object' && crs !== null ? crs : {}) as { type?: unknown; properties?: Record<string, unknown> | null };
+  const props = c.properties ?? {};
+  if (c.type === 'name' && typeof props.name === 'string') {
+    const name = props.name.trim();
+    if (CRS84.test(name)) return null;
+    if (EPSG_4326.test(name)) {
+      return `${where} names the coordinate system ${JSON.stringify(name)}, which lists latitude first; GeoJSON (RFC 7946) coordinates are longitude first, so latitude and longitude may be swapped. Export the file again as RFC 7946 GeoJSON (WGS84 longitude, latitude, no "crs").`;
+    }
+    return `${where} names the coordinate system ${JSON.stringify(name)}; only WGS84 longitude, latitude (RFC 7946) can be imported. Convert the file to WGS84 longitude/latitude and export it without "crs".`;
+  }
+  const href = typeof props.href === 'string' ? ` ${JSON.stringify(props.href)}` : '';
+  return `${where} has a "crs" member (${c.type === 'link' ? `a link to${href}` : JSON.stringify(crs)}) that is not WGS84 longitude, latitude (RFC 7946); convert the file to WGS84 longitude/latitude and export it without "crs".`;
+}
+
+/**
+ * For importers: why a parsed GeoJSON document cannot be read as RFC 7946 WGS84 longitude/latitude, or null.
+ * RFC 7946 §4 removed `crs`; files in the 2008 form may still carry one, on the collection or on any feature or
+ * geometry. Absent, or naming OGC CRS84: fine. Anything else (a projected system, a link, the latitude-first
+ * EPSG:4326 urn) is refused, naming it, so coordinates never land in the wrong place.
+ */
+export function geoJsonCrsProblem(data: unknown): string | null {
+  if (typeof data !== 'object' || data === null) return null;
+  const o = data as { crs?: unknown; features?: unknown; geometry?: { crs?: unknown } | null };
+  const top = crsProblem(o.crs, 'The file');
+  if (top) return top;
+  const features = Array.isArray(o.features) ? (o.features as unknown[]) : [o];
+  for (const [i, f] of features.entries()) {
+    if (typeof f !== 'object' || f === null) continue;
+    const ft = f as { crs?: unknown; geometry?: { crs?: unknown } | null };
+    const p = (f !== o ? crsProblem(ft.crs, `Feature ${i}`) : null) ?? crsProblem(ft.geometry?.crs, `The geometry of feature ${i}`);
+    if (p) return p;
+  }
+  return null;
+}

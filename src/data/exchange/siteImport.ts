@@ -12,12 +12,13 @@
  * Text is kept as plain strings: the UI must show it as text, never as HTML.
  */
 import type { GlintmarkDb } from '../db.ts';
+import { geoJsonCrsProblem } from './geojson.ts';
 import { siteRepo } from '../repo/sites.ts';
 import { WRITE_SCOPE } from '../repo/entity.ts';
 import type { WriteContext } from '../repo/context.ts';
 import { fieldIssues } from '../schema/validate.ts';
 import type { SiteFields, SiteRecord } from '../types.ts';
-import { CsvSyntaxError, parseCsv } from '../../core/text/csv.ts';
+import { CsvSyntaxError, parseCsv, unprotectCsvCell } from '../../core/text/csv.ts';
 
 export type SiteImportKind = 'csv' | 'geojson';
 
@@ -130,8 +131,10 @@ function parseCsvSites(text: string): Parsed {
       continue;
     }
     const raw: Raw = { extras: [] };
-    for (const c of Object.keys(COLUMNS) as Column[]) if (index[c] >= 0) raw[c] = r.fields[index[c]];
-    r.fields.forEach((v, i) => {
+    // Cells our export protected against spreadsheet formulas ("'=…") are read back as written.
+    const cells = r.fields.map(unprotectCsvCell);
+    for (const c of Object.keys(COLUMNS) as Column[]) if (index[c] >= 0) raw[c] = cells[index[c]];
+    cells.forEach((v, i) => {
       if (!known.has(i) && !IGNORED.has(names[i]) && v.trim() !== '') raw.extras.push([header.fields[i].trim(), v]);
     });
     candidates.push({ row: r.line, raw });
@@ -149,6 +152,8 @@ function parseGeoJsonSites(text: string): Parsed {
   } catch {
     return { candidates: [], rejected: [{ row: 0, reason: 'not a GeoJSON file: the text is not JSON' }] };
   }
+  const crs = geoJsonCrsProblem(data);
+  if (crs) return { candidates: [], rejected: [{ row: 0, reason: crs }] };
   const o = (data ?? {}) as { type?: unknown; features?: unknown };
   const features = o.type === 'FeatureCollection' && Array.isArray(o.features) ? (o.features as unknown[]) : o.type === 'Feature' ? [data] : null;
   if (!features) return { candidates: [], rejected: [{ row: 0, reason: `not a GeoJSON FeatureCollection (its type is ${JSON.stringify(o.type ?? null)})` }] };

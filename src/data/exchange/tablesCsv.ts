@@ -1,8 +1,9 @@
 /**
  * CSV exports of installations, inspections and sites (live rows only; ids kept so rows can be traced back).
  * Column names carry units; azimuths are degrees clockwise from true north in [0, 360); times are
- * ISO 8601 UTC; lists (geometry ids, crew) are joined with "; ". Text is written as stored: a note that
- * starts with "=" stays as typed, so open these files in a spreadsheet with formulas disabled.
+ * ISO 8601 UTC; lists (geometry ids, crew) are joined with "; ". A text cell that a spreadsheet would run as a
+ * formula (starting with =, +, -, @, TAB or CR) is prefixed with a quote (core/text/csv.ts protectCsvCell); the
+ * site import removes it again. Numbers are written as numbers.
  */
 import type { GlintmarkDb } from '../db.ts';
 import type { InspectionRecord, InstallationRecord, ReflectorRecord, SiteRecord } from '../types.ts';

@@ -5,7 +5,7 @@
  */
 import type { Table } from 'dexie';
 import type { GlintmarkDb } from '../db.ts';
-import { InvalidStateForEditError, RecordNotFoundError, StaleRecordError } from '../errors.ts';
+import { InvalidStateForEditError, RecordNotFoundError, StaleRecordError, ValidationError } from '../errors.ts';
 import { TABLE_NOUN, parseFields, splitRow } from '../schema/validate.ts';
 import type { EntityFieldsByTable, EntityRecord, EntityTable, RevisionRecord } from '../types.ts';
 import { resolveContext, type WriteContext } from './context.ts';
@@ -20,6 +20,9 @@ export const WRITE_SCOPE = ['sites', 'reflectors', 'geometries', 'installations'
 const VISITS_ON_EDIT = new Set<EntityTable>(['installations', 'inspections']);
 const VISITS_ON_DELETE = new Set<EntityTable>(['sites', 'reflectors', 'installations', 'inspections']);
 const siteIdOf = (table: EntityTable, row: { id: string }) => (table === 'sites' ? row.id : (row as unknown as { siteId: string }).siteId);
+
+/** Why an update that changes `demo` is refused. */
+export const DEMO_FIXED = 'whether a record is demo data is set when the record is created and cannot be changed; create a new record instead';
 
 export interface EditContext extends WriteContext {
   /** The rev the caller edited; a different current rev rejects with StaleRecordError. */
@@ -102,6 +105,8 @@ export function makeEntityRepo<T extends EntityTable>(
         const changes = diffFields(curFields, f);
         if (changes.length === 0) return cur;
         const changed = new Set(changes.map((c) => c.field));
+        // Demo is a property of creation: "Remove demo data" must never be able to reach a real record.
+        if (changed.has('demo')) throw new ValidationError(`The ${noun}`, [{ path: 'demo', message: DEMO_FIXED }]);
         await checks(db, id, f, (k) => changed.has(k as string));
         const next = { ...cur, ...f, rev: cur.rev + 1, updatedAtMs: nowMs } as EntityRecord<T>;
         await tbl(db).put(next);

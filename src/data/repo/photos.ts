@@ -6,6 +6,7 @@
 import * as v from 'valibot';
 import type { GlintmarkDb } from '../db.ts';
 import { InvalidStateForEditError, MissingReferenceError, PhotoTooLargeError, ValidationError } from '../errors.ts';
+import { sha256Hex } from '../hash.ts';
 import { lineText, toIssues } from '../schema/fields.ts';
 import type { InspectionRecord, InstallationRecord, PhotoOwnerTable, PhotoRecord } from '../types.ts';
 import { resolveContext, type WriteContext } from './context.ts';
@@ -49,6 +50,8 @@ export async function addPhoto(db: GlintmarkDb, owner: PhotoOwner, role: string,
   if (!MIME.test(mime)) throw new ValidationError('The photo', [{ path: 'mime', message: `must be an image type such as image/jpeg, got ${JSON.stringify(mime)}` }]);
   const takenAtMs = opts.takenAtMs ?? nowMs;
   if (!Number.isInteger(takenAtMs) || takenAtMs < 0) throw new ValidationError('The photo', [{ path: 'takenAtMs', message: `must be ms since 1970, got ${takenAtMs}` }]);
+  // Hashed before the transaction: a digest is not an IndexedDB request and would end the transaction.
+  const sha256 = await sha256Hex(blob);
   const photo: PhotoRecord = {
     id: crypto.randomUUID(),
     rev: 1,
@@ -61,6 +64,7 @@ export async function addPhoto(db: GlintmarkDb, owner: PhotoOwner, role: string,
     mime,
     blob,
     bytes: blob.size,
+    sha256,
     takenAtMs,
   };
   await db.transaction('rw', WRITE_SCOPE, async () => {
@@ -112,4 +116,26 @@ export const getPhoto = (db: GlintmarkDb, id: string): Promise<PhotoRecord | und
 export async function listPhotos(db: GlintmarkDb, owner: PhotoOwner, opts: { includeDeleted?: boolean } = {}): Promise<PhotoRecord[]> {
   const rows = await db.photos.where('[ownerTable+ownerId]').equals([owner.table, owner.id]).toArray();
   return rows.filter((p) => opts.includeDeleted || p.deletedAtMs === null).sort((a, b) => a.takenAtMs - b.takenAtMs || a.id.localeCompare(b.id));
+}
+
+/**
+ * Hash every photo that has no `sha256` yet (photos stored before schema 5), one at a time: read, digest outside
+ * any transaction, then write the hash in a short transaction if the row still lacks it. Not a crew edit, so no
+ * rev bump and no revision (like the schema upgrades; two phones hashing the same photo write the same value).
+ * Resolves with the number of photos hashed. Safe to call again at any time; it is a no-op once all are hashed.
+ */
+export async function fillPhotoHashes(db: GlintmarkDb): Promise<number> {
+  const ids = await db.photos.filter((p) => typeof p.sha256 !== 'string').primaryKeys();
+  let n = 0;
+  for (const id of ids) {
+    const p = await db.photos.get(id);
+    if (!p || typeof p.sha256 === 'string') continue;
+    const sha256 = await sha256Hex(p.blob);
+    await db.transaction('rw', db.photos, async () => {
+      const now = await db.photos.get(id);
+      if (now && typeof now.sha256 !== 'string') await db.photos.put({ ...now, sha256 });
+    });
+    n++;
+  }
+  return n;
 }

@@ -4,6 +4,7 @@
  */
 import * as v from 'valibot';
 import type { Issue } from '../errors.ts';
+import { RECORD_BOUNDS, boundsText, type Bounds } from './ranges.ts';
 
 const shown = (x: unknown): string => {
   if (typeof x === 'string') return JSON.stringify(x.length > 40 ? x.slice(0, 40) + '…' : x);
@@ -20,18 +21,10 @@ export function finiteNumber(label: string) {
   );
 }
 
-interface Bounds {
-  min: number;
-  max: number;
-  unit: string;
-  /** Exclude the bound itself. */
-  minOpen?: boolean;
-  maxOpen?: boolean;
-}
 
 /** A finite number inside a stated interval; the message names the interval with brackets and unit. */
 export function rangeNumber(label: string, b: Bounds) {
-  const text = `${b.minOpen ? '(' : '['}${b.min}, ${b.max}${b.maxOpen ? ')' : ']'} ${b.unit}`;
+  const text = boundsText(b);
   const msg = (i: { input: unknown }) => `${label} must be in ${text}, got ${String(i.input)}`;
   return v.pipe(
     finiteNumber(label),
@@ -54,10 +47,10 @@ export function nonNegativeNumber(label: string, unit: string) {
   );
 }
 
-export const latDeg = (label = 'latitude') => rangeNumber(label, { min: -90, max: 90, unit: 'degrees' });
-export const lonDeg = (label = 'longitude') => rangeNumber(label, { min: -180, max: 180, maxOpen: true, unit: 'degrees' });
+export const latDeg = (label = 'latitude') => rangeNumber(label, RECORD_BOUNDS.latDeg);
+export const lonDeg = (label = 'longitude') => rangeNumber(label, RECORD_BOUNDS.lonDeg);
 /** Ellipsoidal heights between the deepest ocean trench and above the highest summit. */
-export const heightEllM = (label = 'ellipsoidal height') => rangeNumber(label, { min: -12000, max: 10000, unit: 'm' });
+export const heightEllM = (label = 'ellipsoidal height') => rangeNumber(label, RECORD_BOUNDS.heightEllM);
 export const azimuthDeg = (label: string) => rangeNumber(label, { min: 0, max: 360, maxOpen: true, unit: 'degrees' });
 export const tiltDeg = (label: string) => rangeNumber(label, { min: -90, max: 90, unit: 'degrees' });
 export const rollDeg = (label: string) => rangeNumber(label, { min: -180, max: 180, minOpen: true, unit: 'degrees' });

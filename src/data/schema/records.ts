@@ -3,6 +3,7 @@
  * appear in backups. Field objects are strict: a misspelt field name is an error, not silently dropped.
  */
 import * as v from 'valibot';
+import { RECORD_BOUNDS } from './ranges.ts';
 import {
   AZIMUTH_METHODS,
   CHECK_STATES,
@@ -64,7 +65,7 @@ export const reflectorFieldsSchema = v.pipe(
     siteId: uuid('site id'),
     label: lineText('reflector label', { min: 1, max: 80 }),
     shape: oneOf('shape', REFLECTOR_SHAPES),
-    edgeM: rangeNumber('edge length', { min: 0, max: 20, minOpen: true, unit: 'm' }),
+    edgeM: rangeNumber('edge length', RECORD_BOUNDS.edgeM),
     construction: v.strictObject({
       panels: oneOf('panels', ['solid', 'mesh'] as const),
       meshOpeningMm: v.optional(positiveNumber('mesh opening', 'mm')),
@@ -96,12 +97,12 @@ export const reflectorFieldsSchema = v.pipe(
 export const geometryFieldsSchema = v.strictObject({
   siteId: uuid('site id'),
   reflectorId: v.nullable(uuid('reflector id')),
-  incidenceDeg: rangeNumber('incidence', { min: 0, max: 90, minOpen: true, maxOpen: true, unit: 'degrees' }),
+  incidenceDeg: rangeNumber('incidence', RECORD_BOUNDS.incidenceDeg),
   headingDeg: azimuthDeg('heading'),
   look: oneOf('look side', ['right', 'left'] as const),
   direction: v.nullable(oneOf('pass direction', ['ascending', 'descending'] as const)),
   band: lineText('band', { min: 1, max: 16 }),
-  wavelengthM: rangeNumber('wavelength', { min: 0, max: 10, minOpen: true, unit: 'm' }),
+  wavelengthM: rangeNumber('wavelength', RECORD_BOUNDS.wavelengthM),
   source: oneOf('geometry source', GEOMETRY_SOURCES),
   satellite: v.nullable(lineText('satellite', { min: 1, max: 40 })),
   elementsEpochMs: v.nullable(timeMs('elements epoch')),

@@ -4,6 +4,7 @@ import { ValidationError, type Issue } from '../errors.ts';
 import type { EntityFieldsByTable, EntityTable } from '../types.ts';
 import { FIELD_SCHEMAS, META_KEYS, recordMetaSchema } from './records.ts';
 import { toIssues } from './fields.ts';
+import { forbiddenKey, forbiddenKeyMessage } from './plain.ts';
 
 /** Human names of the tables, singular, for messages. */
 export const TABLE_NOUN: Record<EntityTable | 'photos', string> = {
@@ -29,10 +30,13 @@ export function parseFields<T extends EntityTable>(table: T, fields: unknown): E
   return r.output;
 }
 
-/** Split a whole row into its RecordMeta part and its fields part (no validation). */
+/**
+ * Split a whole row into its RecordMeta part and its fields part (no validation). The parts have no prototype, so
+ * a key named "__proto__" stays an ordinary (unknown, refused) field instead of becoming the parts' prototype.
+ */
 export function splitRow(row: Record<string, unknown>): { meta: Record<string, unknown>; fields: Record<string, unknown> } {
-  const meta: Record<string, unknown> = {};
-  const fields: Record<string, unknown> = {};
+  const meta = Object.create(null) as Record<string, unknown>;
+  const fields = Object.create(null) as Record<string, unknown>;
   for (const [k, val] of Object.entries(row)) {
     if ((META_KEYS as readonly string[]).includes(k)) meta[k] = val;
     else fields[k] = val;
@@ -43,6 +47,8 @@ export function splitRow(row: Record<string, unknown>): { meta: Record<string, u
 /** Issues of a whole row (meta + fields) as found in a backup, [] when valid. */
 export function rowIssues(table: EntityTable, row: unknown, prefix: string): Issue[] {
   if (typeof row !== 'object' || row === null || Array.isArray(row)) return [{ path: prefix, message: 'must be an object' }];
+  const bad = forbiddenKey(row);
+  if (bad !== null) return [{ path: prefix, message: forbiddenKeyMessage(bad) }];
   const { meta, fields } = splitRow(row as Record<string, unknown>);
   const m = v.safeParse(recordMetaSchema, meta);
   const issues = m.success ? [] : toIssues(m.issues, prefix);

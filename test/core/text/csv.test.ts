@@ -32,7 +32,7 @@ describe('RFC 4180 CSV', () => {
       fc.property(
         fc.array(fc.array(fc.string({ unit: fc.constantFrom('a', ',', '"', '\n', '\r', ' ', 'é') }), { minLength: 2, maxLength: 4 }), { minLength: 1, maxLength: 6 }),
         (rows) => {
-          const back = parseCsv(formatCsv(rows)).map((r) => r.fields);
+          const back = parseCsv(formatCsv(rows, { protectFormulas: false })).map((r) => r.fields);
           const expected = rows.filter((r) => !(r.length === 1 && r[0] === ''));
           expect(back).toEqual(expected);
         },

@@ -33,6 +33,14 @@ describe('photos', () => {
     expect((await history(db(), 'photos', p.id))[0].snapshot).not.toHaveProperty('blob');
   });
 
+  it('stores the SHA-256 of the bytes with the photo (64 lowercase hex digits)', async () => {
+    const inst = await installation();
+    const p = await addPhoto(db(), { table: 'installations', id: inst.id }, 'north', new Blob(['abc'], { type: 'image/jpeg' }), BY);
+    // NIST FIPS 180-2 (2002), Appendix B.1: SHA-256("abc").
+    expect(p.sha256).toBe('ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad');
+    expect((await db().photos.get(p.id))?.sha256).toBe(p.sha256);
+  });
+
   it('refuses a photo that is too large with a clear message and keeps the text record unchanged', async () => {
     const inst = await installation();
     const before = await dumpDb(db());

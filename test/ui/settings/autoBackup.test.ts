@@ -1,6 +1,6 @@
 import 'fake-indexeddb/auto';
 import { describe, expect, it } from 'vitest';
-import { getMeta, recordBackupSaved, siteRepo, validateBackup } from '../../../src/data/index.ts';
+import { getMeta, readBackup, recordBackupSaved, siteRepo } from '../../../src/data/index.ts';
 import { backupDue, localDayKey, maybeAutoBackup, newestChangeAtMs, NOT_BACKED_UP_MESSAGE } from '../../../src/ui/pages/settings/autoBackup.ts';
 import { BY, memorySaver, site, T0_MS, useTestDb } from './helpers.ts';
 
@@ -34,9 +34,9 @@ describe('maybeAutoBackup', () => {
     await siteRepo.create(db(), site('MF-01'), { ...BY, nowMs: T0_MS - DAY_MS });
     const saver = memorySaver();
     const r = await maybeAutoBackup(db(), deps(true, saver));
-    expect(r).toMatchObject({ kind: 'saved', backup: { fileName: 'glintmark-backup-20270702-1200Z.json', atMs: T0_MS } });
+    expect(r).toMatchObject({ kind: 'saved', backup: { fileName: 'glintmark-backup-20270702-1200Z.glintmark.zip', atMs: T0_MS } });
     expect(saver.files.map((f) => f.askPermission)).toEqual([false]);
-    expect(validateBackup(saver.files[0].text).tables.sites).toHaveLength(1);
+    expect((await readBackup(saver.files[0].blob)).doc.tables.sites).toHaveLength(1);
     expect(await getMeta(db(), 'lastBackupAtMs')).toBe(T0_MS);
     await siteRepo.create(db(), site('MF-02'), { ...BY, nowMs: T0_MS + HOUR_MS });
     expect(await maybeAutoBackup(db(), deps(true, saver, T0_MS + 2 * HOUR_MS))).toEqual({ kind: 'not-needed', reason: 'backed-up-today' });

@@ -5,9 +5,9 @@ import { backupFileName, EXPORT_FILE_TYPES, EXPORT_KINDS, exportFileName, import
 const T0_MS = Date.UTC(2027, 6, 2, 9, 5, 59, 999); // 2027-07-02T09:05:59.999Z
 
 describe('file names', () => {
-  it('backup: glintmark-backup-YYYYMMDD-HHMMZ.json in UTC, minutes truncated', () => {
-    expect(backupFileName(T0_MS)).toBe('glintmark-backup-20270702-0905Z.json');
-    expect(backupFileName(Date.UTC(2027, 11, 31, 23, 59))).toBe('glintmark-backup-20271231-2359Z.json');
+  it('backup: glintmark-backup-YYYYMMDD-HHMMZ.glintmark.zip in UTC, minutes truncated', () => {
+    expect(backupFileName(T0_MS)).toBe('glintmark-backup-20270702-0905Z.glintmark.zip');
+    expect(backupFileName(Date.UTC(2027, 11, 31, 23, 59))).toBe('glintmark-backup-20271231-2359Z.glintmark.zip');
   });
 
   it('the stamp reads back as the same UTC minute for any date from 1970 to 9999', () => {

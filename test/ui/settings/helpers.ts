@@ -1,16 +1,16 @@
 /** One isolated fake-indexeddb database per test, deleted afterwards. */
 import 'fake-indexeddb/auto';
-import type { SaveFileResult } from '../../../src/sensors/backupFile.ts';
+import type { SaveArchiveResult } from '../../../src/sensors/backupFile.ts';
 
 export { useTestDb } from '../../data/helpers.ts';
 
 /** A file saver stub that keeps what it was given. */
-export function memorySaver(fail?: string) {
-  const files: { name: string; text: string; askPermission: boolean | undefined }[] = [];
-  const save = async (name: string, text: string, opts?: { askPermission?: boolean }): Promise<SaveFileResult> => {
+export function memorySaver(fail?: string, o: { written?: boolean } = {}) {
+  const files: { name: string; blob: Blob; askPermission: boolean | undefined }[] = [];
+  const save = async (name: string, produce: () => Promise<Blob>, opts?: { askPermission?: boolean }): Promise<SaveArchiveResult> => {
     if (fail) return { ok: false, error: { message: fail } };
-    files.push({ name, text, askPermission: opts?.askPermission });
-    return { ok: true, value: { where: `Documents/${name}` } };
+    files.push({ name, blob: await produce(), askPermission: opts?.askPermission });
+    return { ok: true, value: { where: `Documents/${name}`, written: o.written ?? true } };
   };
   return { save, files };
 }

@@ -143,7 +143,7 @@ export function PlanPage() {
             </div>
             <div className="gm-cards">
               <BigNumber label="Signal-to-clutter" value={plan.scrDb !== null ? fmtNum(plan.scrDb, 1) : '—'} unit=" dB" testId="result-scr" tone={plan.scrDb === null ? undefined : plan.scrDb >= 20 ? 'ok' : plan.scrDb < 10 ? 'bad' : undefined} />
-              <BigNumber label="LOS precision" value={plan.losStdMm !== null ? fmtNum(plan.losStdMm, 2) : '—'} unit=" mm" testId="result-precision" sub="lower bound: clutter only" />
+              <BigNumber label="LOS precision" value={plan.losStdMm !== null ? fmtNum(plan.losStdMm, 2) : '—'} unit=" mm" testId="result-precision" sub={`one image, lower bound (clutter only); difference of two images ${plan.losStdDiffMm !== null ? fmtNum(plan.losStdDiffMm, 2) : '—'} mm (√2 larger)`} />
               <BigNumber label="Edge for target SCR" value={plan.edgeForTargetM !== null ? fmtNum(plan.edgeForTargetM, 2) : '—'} unit=" m" testId="result-edge-needed" />
             </div>
             <p className="gm-note">

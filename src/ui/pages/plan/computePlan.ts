@@ -53,7 +53,10 @@ export interface PlanResult {
   cellAreaM2: number | null;
   scrDb: number | null;
   phaseStdRad: number | null;
+  /** LOS precision of one image, mm. */
   losStdMm: number | null;
+  /** LOS precision of the difference of two images (a displacement between two dates): √2 × losStdMm, mm. */
+  losStdDiffMm: number | null;
   edgeForTargetM: number | null;
 }
 
@@ -141,6 +144,7 @@ export function computePlan(f: PlanForm): PlanResult {
     scrDb: scr,
     phaseStdRad: phase,
     losStdMm: phase !== null && wavelengthM !== null ? losPrecisionMm(phase, wavelengthM) : null,
+    losStdDiffMm: phase !== null && wavelengthM !== null ? Math.SQRT2 * losPrecisionMm(phase, wavelengthM) : null,
     edgeForTargetM:
       wavelengthM !== null && ts.value !== undefined && s0.value !== undefined && cellAreaM2 !== null
         ? edgeForScrM(f.shape, wavelengthM, ts.value + (worstLossDb !== null && Number.isFinite(worstLossDb) ? worstLossDb : 0), s0.value, cellAreaM2)

@@ -7,6 +7,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { useGlintmarkDb } from '../../../data/index.ts';
 import { maybeAutoBackup, type AutoBackupOutcome } from './autoBackup.ts';
+import { DownloadConfirm } from './DownloadConfirm.tsx';
 import { useBackupDownload } from './useBackupDownload.ts';
 
 export function BackupReminder(props: { onSaved?: () => void; refreshKey?: number }) {
@@ -51,6 +52,7 @@ export function BackupReminder(props: { onSaved?: () => void; refreshKey?: numbe
       <button type="button" className="gm-btn gm-primary" disabled={download.busy} onClick={() => void download.run()} data-testid="backup-reminder-download">
         Download a backup
       </button>
+      <DownloadConfirm download={download} testId="backup-reminder-confirm" />
       {download.error ? (
         <p className="gm-error" role="alert">
           {download.error}

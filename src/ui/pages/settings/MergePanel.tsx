@@ -3,14 +3,15 @@
  * unchanged, newer here, conflicts listed one by one). Nothing is dropped: a version not applied is kept as a conflict.
  */
 import { useState } from 'react';
-import { mergeBackup, useGlintmarkDb, validateBackup, type MergeReport } from '../../../data/index.ts';
+import { mergeBackup, readBackup, useGlintmarkDb, type MergeReport } from '../../../data/index.ts';
 import { settings } from '../../state/settings.ts';
 import { useStore } from '../../state/store.ts';
+import { BACKUP_ACCEPT } from './fileNames.ts';
 import { FilePicker } from './FilePicker.tsx';
 import { describeBackup, mergeConflictLines, mergeRows, mergeSummary } from './reports.ts';
 import { messageOf } from './uiErrors.ts';
 
-type Step = { step: 'idle' } | { step: 'confirm'; fileName: string; text: string; description: string } | { step: 'working' };
+type Step = { step: 'idle' } | { step: 'confirm'; fileName: string; file: File; description: string } | { step: 'working' };
 
 function MergeReportView(props: { report: MergeReport }) {
   const rows = mergeRows(props.report);
@@ -54,8 +55,8 @@ export function MergePanel(props: { onChanged: () => void }) {
     setError(null);
     setStep({ step: 'idle' });
     try {
-      const text = await file.text();
-      setStep({ step: 'confirm', fileName: file.name, text, description: describeBackup(validateBackup(text, { checkReferences: false })) });
+      const { doc } = await readBackup(file, { checkReferences: false });
+      setStep({ step: 'confirm', fileName: file.name, file, description: describeBackup(doc) });
     } catch (e) {
       setError(messageOf(e));
     }
@@ -63,10 +64,10 @@ export function MergePanel(props: { onChanged: () => void }) {
 
   const merge = async () => {
     if (step.step !== 'confirm') return;
-    const { text } = step;
+    const { file } = step;
     setStep({ step: 'working' });
     try {
-      setReport(await mergeBackup(db, text, { by: crew || 'Glintmark merge' }));
+      setReport(await mergeBackup(db, file, { by: crew || 'Glintmark merge' }));
       props.onChanged();
     } catch (e) {
       setError(messageOf(e));
@@ -78,7 +79,7 @@ export function MergePanel(props: { onChanged: () => void }) {
     <div className="gm-card" style={{ marginTop: 8 }}>
       <h3>Merge a backup from another phone</h3>
       <p className="gm-note">Adds the other phone's records to this one and keeps the newer version of each; nothing is deleted.</p>
-      <FilePicker label="Backup file from the other phone (.json)" accept=".json,application/json" testId="merge-file" disabled={step.step === 'working'} onFile={(f) => void pick(f)} />
+      <FilePicker label="Backup file from the other phone (.glintmark.zip or .json)" accept={BACKUP_ACCEPT} testId="merge-file" disabled={step.step === 'working'} onFile={(f) => void pick(f)} />
       {step.step === 'confirm' ? (
         <div className="gm-settings-confirm" data-testid="merge-confirm">
           <p>

@@ -4,15 +4,16 @@
  * Every failure shows the data layer's plain message; a refused or failed restore changes nothing.
  */
 import { useState } from 'react';
-import { restoreBackup, useGlintmarkDb, validateBackup } from '../../../data/index.ts';
+import { readBackup, restoreBackup, useGlintmarkDb } from '../../../data/index.ts';
+import { BACKUP_ACCEPT } from './fileNames.ts';
 import { FilePicker } from './FilePicker.tsx';
 import { describeBackup, restoreSummary } from './reports.ts';
 import { messageOf } from './uiErrors.ts';
 
 type Step =
   | { step: 'idle' }
-  | { step: 'confirm'; fileName: string; text: string; description: string }
-  | { step: 'confirm-replace'; fileName: string; text: string; description: string; warning: string }
+  | { step: 'confirm'; fileName: string; file: File; description: string }
+  | { step: 'confirm-replace'; fileName: string; file: File; description: string; warning: string }
   | { step: 'working' };
 
 export function RestorePanel(props: { onChanged: () => void }) {
@@ -26,9 +27,9 @@ export function RestorePanel(props: { onChanged: () => void }) {
     setError(null);
     setStep({ step: 'idle' });
     try {
-      const text = await file.text();
-      // The text itself goes to restoreBackup: a backup without an element-set list must stay "without".
-      setStep({ step: 'confirm', fileName: file.name, text, description: describeBackup(validateBackup(text)) });
+      // Checked in full (every checksum and hash) before anything is offered; the file itself goes to restoreBackup.
+      const { doc } = await readBackup(file);
+      setStep({ step: 'confirm', fileName: file.name, file, description: describeBackup(doc) });
     } catch (e) {
       setError(messageOf(e));
     }
@@ -39,7 +40,7 @@ export function RestorePanel(props: { onChanged: () => void }) {
     const current = step;
     setStep({ step: 'working' });
     try {
-      const counts = await restoreBackup(db, current.text, { replace });
+      const counts = await restoreBackup(db, current.file, { replace });
       setStep({ step: 'idle' });
       setMessage(restoreSummary(counts));
       props.onChanged();
@@ -62,7 +63,7 @@ export function RestorePanel(props: { onChanged: () => void }) {
     <div className="gm-card" style={{ marginTop: 8 }}>
       <h3>Restore from backup</h3>
       <p className="gm-note">Replaces the logbook on this phone with a backup file. To combine two phones' work, use merge below.</p>
-      <FilePicker label="Backup file to restore (.json)" accept=".json,application/json" testId="restore-file" disabled={step.step === 'working'} onFile={(f) => void pick(f)} />
+      <FilePicker label="Backup file to restore (.glintmark.zip, or .json from an older version)" accept={BACKUP_ACCEPT} testId="restore-file" disabled={step.step === 'working'} onFile={(f) => void pick(f)} />
       {step.step === 'confirm' || step.step === 'confirm-replace' ? (
         <div className="gm-settings-confirm" data-testid="restore-confirm">
           <p>

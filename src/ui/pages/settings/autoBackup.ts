@@ -6,12 +6,12 @@
  *
  * "Changed" means a record, photo, element set or history entry newer than the last backup, or a merge conflict
  * found or resolved since; demo records do not count. A merge that brought only rows older than the last backup is not counted as a change;
- * the next edit is. The check exports the whole logbook once (the same export the backup writes).
+ * the next edit is. The check reads the records without photo bytes; the archive is written only when a backup is due.
  */
-import { getMeta, exportBackup, type BackupDocument, type GlintmarkDb } from '../../../data/index.ts';
-import { isNativeFiles, saveBackupFile } from '../../../sensors/backupFile.ts';
+import { exportBackupRecords, getMeta, type BackupDocument, type GlintmarkDb } from '../../../data/index.ts';
+import { isNativeFiles, saveBackupArchive } from '../../../sensors/backupFile.ts';
 import { APP_VERSION } from './appInfo.ts';
-import { saveBackupDocument, type BackupSaveDeps, type SavedBackup } from './backupActions.ts';
+import { saveFullBackup, type BackupSaveDeps, type SavedBackup } from './backupActions.ts';
 
 export const NOT_BACKED_UP_MESSAGE = "Today's work is not backed up: download a backup";
 
@@ -86,11 +86,11 @@ async function run(db: GlintmarkDb, o: Partial<AutoBackupDeps>): Promise<AutoBac
   try {
     const last = await getMeta<number>(db, 'lastBackupAtMs');
     if (last !== undefined && dayKey(last) === dayKey(nowMs)) return { kind: 'not-needed', reason: 'backed-up-today' };
-    const doc = await exportBackup(db, { appVersion: o.appVersion ?? APP_VERSION, nowMs });
+    const doc = await exportBackupRecords(db, { appVersion: o.appVersion ?? APP_VERSION, nowMs });
     const due = backupDue(last, newestChangeAtMs(doc), nowMs, dayKey);
     if (due !== 'due') return due;
     if (!(o.native ?? isNativeFiles())) return { kind: 'download-needed', message: NOT_BACKED_UP_MESSAGE };
-    const saved = await saveBackupDocument(db, doc, { save: o.save ?? saveBackupFile, nowMs, askPermission: false });
+    const saved = await saveFullBackup(db, { save: o.save ?? saveBackupArchive, nowMs, appVersion: o.appVersion ?? APP_VERSION, askPermission: false });
     return saved.ok ? { kind: 'saved', backup: saved.value } : { kind: 'failed', message: `The automatic backup failed: ${saved.error.message}` };
   } catch (e) {
     return { kind: 'failed', message: `The automatic backup check failed: ${e instanceof Error ? e.message : String(e)}` };

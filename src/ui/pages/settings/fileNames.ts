@@ -13,8 +13,11 @@ export function utcStamp(atMs: number): string {
   return `${d.getUTCFullYear()}${pad(d.getUTCMonth() + 1)}${pad(d.getUTCDate())}-${pad(d.getUTCHours())}${pad(d.getUTCMinutes())}Z`;
 }
 
-/** `glintmark-backup-YYYYMMDD-HHMMZ.json` */
-export const backupFileName = (atMs: number): string => `glintmark-backup-${utcStamp(atMs)}.json`;
+/** `glintmark-backup-YYYYMMDD-HHMMZ.glintmark.zip` (a ZIP archive; see src/data/backup/archive.ts) */
+export const backupFileName = (atMs: number): string => `glintmark-backup-${utcStamp(atMs)}.glintmark.zip`;
+
+/** What the restore and merge pickers accept: backup archives and the JSON backups of earlier versions. */
+export const BACKUP_ACCEPT = '.zip,.json,application/zip,application/json';
 
 export const EXPORT_KINDS = ['sites-geojson', 'sites-csv', 'installations-csv', 'inspections-csv'] as const;
 export type ExportKind = (typeof EXPORT_KINDS)[number];
