@@ -14,6 +14,15 @@ if ! command -v chromium >/dev/null 2>&1 && [ ! -x /usr/bin/chromium ]; then
     echo "could not install chromium (apt-get install -y chromium)"; exit 1; }
 fi
 
+# Team register: Debian's PostgreSQL 15 for the server tests (a throwaway cluster is started by
+# test/server/pg-global-setup.ts on 127.0.0.1:${GLINTMARK_PG_PORT:-55432} and removed afterwards).
+if [ ! -x /usr/lib/postgresql/15/bin/initdb ]; then
+  echo "Installing Debian's postgresql for the register tests…"
+  SUDO=""; [ "$(id -u)" -ne 0 ] && SUDO="sudo"
+  $SUDO apt-get update -qq && DEBIAN_FRONTEND=noninteractive $SUDO apt-get install -y -qq postgresql >/dev/null || {
+    echo "could not install postgresql (apt-get install -y postgresql)"; exit 1; }
+fi
+
 mkdir -p test/e2e/artifacts
 passed=0; failed=0
 
@@ -43,6 +52,10 @@ fi
 echo "== unit and reference tests"
 npx vitest run --reporter=default --reporter=json --outputFile=test/e2e/artifacts/unit.json
 read p f < <(count test/e2e/artifacts/unit.json); passed=$((passed + p)); failed=$((failed + f))
+
+echo "== team register tests (real PostgreSQL)"
+npx vitest run --config vitest.server.config.ts --reporter=default --reporter=json --outputFile=test/e2e/artifacts/server.json
+read p f < <(count test/e2e/artifacts/server.json); passed=$((passed + p)); failed=$((failed + f))
 
 echo "== browser tests"
 npx vitest run --config vitest.e2e.config.ts --reporter=default --reporter=json --outputFile=test/e2e/artifacts/e2e.json
