@@ -15,7 +15,7 @@ const frameworkInCore = [
 ];
 
 export default tseslint.config(
-  { ignores: ['dist/', 'android/', 'ios/', 'node_modules/', 'test/e2e/artifacts/', 'dev-dist/', '.phone/', 'coverage/'] },
+  { ignores: ['dist/', 'android/', 'ios/', 'node_modules/', 'test/e2e/artifacts/', 'dev-dist/', '.phone/', 'coverage/', 'dist-cli/'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -117,3 +117,11 @@ export function useDeletedRecords(siteId?: string): DeletedEntry[] | undefined {
   const db = useGlintmarkDb();
   return useLiveQuery(() => listDeletedRecords(db, siteId === undefined ? {} : { siteId }), [db, siteId]);
 }
+
+/**
+ * A live read for screens whose query lives in a layer above this one (src/sync): reruns when the tables it reads
+ * change, in this tab or another. undefined while loading.
+ */
+export function useLiveRead<T>(querier: () => Promise<T>, deps: readonly unknown[]): T | undefined {
+  return useLiveQuery(querier, [...deps]);
+}

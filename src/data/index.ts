@@ -101,6 +101,7 @@ export {
   useDeletedRecords,
   useGeometries,
   useGlintmarkDb,
+  useLiveRead,
   useHistory,
   useInspection,
   useInstallation,

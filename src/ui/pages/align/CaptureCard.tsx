@@ -108,7 +108,8 @@ export function CaptureBar(props: { inputs: CaptureInputs; capture: Capture | nu
 export function CaptureMethodCard(props: { method: PhoneMethod; onMethod: (m: PhoneMethod) => void; inputs: Pick<CaptureInputs, 'reflector' | 'passes'> }) {
   const [manual, setManual] = useState<ManualForm>({ azimuthDeg: '', tiltDeg: '', rollDeg: '0' });
   const [manualTried, setManualTried] = useState(false);
-  const manualOut = buildManualCapture(manual, props.inputs.reflector, props.inputs.passes, Date.now());
+  // Only the field errors are shown while typing; the capture is stamped with the time of the tap (below).
+  const manualOut = buildManualCapture(manual, props.inputs.reflector, props.inputs.passes, 0);
   const saveManual = () => {
     setManualTried(true);
     const out = buildManualCapture(manual, props.inputs.reflector, props.inputs.passes, Date.now());

@@ -48,6 +48,8 @@ export function PassesPage() {
   const [notice, setNotice] = useState<string | null>(null);
   const timer = useRef<ReturnType<typeof setTimeout> | null>(null);
 
+  const [elementsOpen, setElementsOpen] = useState(true);
+  const setsKnown = useRef(false);
   useEffect(() => {
     listElementSets().then((list) => {
       if (!setsKnown.current && list.length > 0) setElementsOpen(false);
@@ -60,8 +62,6 @@ export function PassesPage() {
   // The site and element panels fold away when they are already set as the screen opens (the tracks come first);
   // set during this visit, they stay open to show what was set. The crew can open or close either at any time.
   const [siteOpen] = useState(() => workflow.get().site === null);
-  const [elementsOpen, setElementsOpen] = useState(true);
-  const setsKnown = useRef(false);
   const zone = site ? siteTimeZone(site.latDeg, site.lonDeg) : null;
   // The start may be typed in the site's own time: it is turned into UTC before the window is checked.
   const [startIn, setStartIn] = useState<'utc' | 'site'>('utc');

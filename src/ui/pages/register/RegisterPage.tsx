@@ -1,8 +1,7 @@
 /** Register overview: every site with its latest installation, reflectors due for inspection, open conflicts, exports. */
 import { IonContent, IonHeader, IonPage, IonTitle, IonToolbar } from '@ionic/react';
-import { useLiveQuery } from 'dexie-react-hooks';
 import { useState } from 'react';
-import { exportInstallationsCsv, exportSitesGeoJson, useGlintmarkDb } from '../../../data/index.ts';
+import { exportInstallationsCsv, exportSitesGeoJson, useGlintmarkDb, useLiveRead } from '../../../data/index.ts';
 import { registerOverview } from '../../../sync/index.ts';
 
 const day = (ms: number) => new Date(ms).toISOString().slice(0, 10);
@@ -19,7 +18,7 @@ function save(name: string, text: string, type: string) {
 export function RegisterPage() {
   const db = useGlintmarkDb();
   const [nowMs] = useState(() => Date.now());
-  const o = useLiveQuery(() => registerOverview(db, nowMs), [db, nowMs]);
+  const o = useLiveRead(() => registerOverview(db, nowMs), [db, nowMs]);
   return (
     <IonPage>
       <IonHeader>
