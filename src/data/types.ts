@@ -1,5 +1,5 @@
 /**
- * Record shapes of the Logbook store (schema version 5). Every figure carries its unit in its name
+ * Record shapes of the Logbook store (schema version 6). Every figure carries its unit in its name
  * because IndexedDB rows and JSON exports keep nothing else. Conventions follow src/core/CONVENTIONS.md:
  * WGS84 degrees, ellipsoidal heights, azimuths clockwise from true north in [0, 360), declination east-positive,
  * instants in ms since 1970-01-01T00:00Z (`…AtMs`); exports add ISO 8601 UTC strings.

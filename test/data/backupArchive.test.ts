@@ -57,7 +57,7 @@ describe('backup archive', () => {
       format: 'glintmark-backup-archive',
       formatVersion: 1,
       createdAtUtc: '2027-07-02T12:00:00.000Z',
-      app: { name: 'glintmark', version: '0.1.0', schemaVersion: 5 },
+      app: { name: 'glintmark', version: '0.1.0', schemaVersion: 6 },
       counts: { sites: 3, reflectors: 1, geometries: 1, installations: 1, inspections: 1, photos: 2, conflicts: 0, elements: 0, revisions: doc.tables.revisions.length },
       records: { path: 'records.json', bytes: files['records.json'].length, sha256: sha(files['records.json']) },
     });

@@ -82,7 +82,7 @@ describe('Settings screen', () => {
     await el(page, 'privacy').waitFor();
     expect(await text(page, 'privacy')).toMatch(/^Nothing leaves this phone unless you export or share it/);
     await expect.poll(() => text(page, 'last-backup')).toMatch(/No backup has been saved/);
-    expect(await text(page, 'schema-version')).toMatch(/schema version 5/);
+    expect(await text(page, 'schema-version')).toMatch(/schema version 6/);
     expect(await el(page, 'backup-reminder').count()).toBe(0); // nothing to back up yet
     await screenshot(page, 'settings-start');
     await shot(page, 'persistence', 'settings-storage');
@@ -116,7 +116,7 @@ describe('Settings screen', () => {
     const entries = unzipSync(new Uint8Array(archive.bytes));
     expect(Object.keys(entries).sort()).toEqual(['manifest.json', 'records.json']);
     const doc = JSON.parse(strFromU8(entries['records.json'])) as { format: string; formatVersion: number; app: { schemaVersion: number }; tables: Record<string, unknown[]> };
-    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 2, app: { schemaVersion: 5 } });
+    expect(doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 2, app: { schemaVersion: 6 } });
     expect(Object.keys(doc.tables).sort()).toEqual(['conflicts', 'elements', 'geometries', 'inspections', 'installations', 'photos', 'reflectors', 'revisions', 'sites']);
     expect(doc.tables.sites).toHaveLength(2);
     // The page cannot see the download end: "last backup" waits for the crew's word.

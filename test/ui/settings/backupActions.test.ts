@@ -17,7 +17,7 @@ describe('saveFullBackup', () => {
     expect(files).toHaveLength(1);
     const read = await readBackup(files[0].blob);
     expect(read.layout).toBe('archive');
-    expect(read.doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 2, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { version: '9.9.9', schemaVersion: 5 } });
+    expect(read.doc).toMatchObject({ format: 'glintmark-backup', formatVersion: 2, exportedAtUtc: '2027-07-02T12:00:00.000Z', app: { version: '9.9.9', schemaVersion: 6 } });
     expect(await getMeta(db(), 'lastBackupAtMs')).toBe(T0_MS);
   });
 
