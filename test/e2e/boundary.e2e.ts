@@ -28,13 +28,13 @@ describe('Error boundaries', () => {
   it('a screen that cannot load shows Reload and Back up now, the tabs still work', async () => {
     await page.route('**/assets/AlignPage-*.js', (r) => r.abort('failed'));
     await page.goto(BASE_URL + '/plan');
-    await el('result-azimuth').waitFor();
+    await el('plan-empty').waitFor(); // a new phone's Plan: what to do first, no aim
     await el('tab-align').click();
     await expect.poll(() => el('boundary-screen').innerText(), POLL).toMatch(/could not be loaded[\s\S]*records and drafts are kept/);
     expect(await el('boundary-reload').isVisible()).toBe(true);
     expect(await el('boundary-backup').isVisible()).toBe(true);
     await el('tab-plan').click();
-    await expect.poll(() => el('result-azimuth').isVisible(), POLL).toBe(true);
+    await expect.poll(() => el('plan-empty').isVisible(), POLL).toBe(true);
   });
 
   it('a screen that throws while rendering shows the boundary; the workflow draft survives', async () => {

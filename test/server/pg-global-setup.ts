@@ -16,8 +16,17 @@ declare module 'vitest' {
   }
 }
 
+/** The first port from `from` on with nothing listening on 127.0.0.1 (a cluster left by a killed run keeps its port). */
+function freePort(from: number): number {
+  for (let p = from; p < from + 50; p++) {
+    const busy = execFileSync('sh', ['-c', `ss -Hltn 'sport = :${p}' | wc -l`]).toString().trim() !== '0';
+    if (!busy) return p;
+  }
+  throw new Error(`no free port in ${from}…${from + 49} for the test cluster`);
+}
+
 export default function setup(project: TestProject) {
-  const port = Number(process.env.GLINTMARK_PG_PORT ?? 55432);
+  const port = freePort(Number(process.env.GLINTMARK_PG_PORT ?? 55432));
   const dir = mkdtempSync(path.join(os.tmpdir(), 'glintmark-pg-'));
   const uid = Number(execFileSync('id', ['-u', 'postgres']).toString());
   const gid = Number(execFileSync('id', ['-g', 'postgres']).toString());
@@ -27,11 +36,17 @@ export default function setup(project: TestProject) {
   asPg('initdb', ['-D', path.join(dir, 'data'), '-A', 'trust', '-U', 'postgres', '--no-sync']);
   asPg('pg_ctl', ['-D', path.join(dir, 'data'), '-l', path.join(dir, 'log'), '-w', '-o', `-p ${port} -k ${dir} -c listen_addresses=127.0.0.1 -c fsync=off`, 'start']);
   project.provide('pgPort', port);
-  return () => {
+  let stopped = false;
+  const stop = () => {
+    if (stopped) return;
+    stopped = true;
     try {
       asPg('pg_ctl', ['-D', path.join(dir, 'data'), '-m', 'immediate', '-w', 'stop']);
     } finally {
       rmSync(dir, { recursive: true, force: true });
     }
   };
+  // Also when the run ends without calling the teardown (an interrupted run), so no cluster is left behind.
+  process.once('exit', stop);
+  return stop;
 }
